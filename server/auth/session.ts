@@ -1,0 +1,41 @@
+/** Resolves the caller from a bearer token or the session cookie; 401 when there is none. */
+import type { NextFunction, Request, Response } from 'express';
+import type { Knex } from 'knex';
+import { HttpError } from '../errors';
+import { SESSION_COOKIE, verifyToken } from './tokens';
+
+export interface SessionUser {
+  id: string;
+  email: string;
+  name: string;
+}
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    user?: SessionUser;
+  }
+}
+
+function tokenFrom(req: Request): string | undefined {
+  const header = req.get('authorization');
+  if (header?.startsWith('Bearer ')) return header.slice(7).trim();
+  const cookies = (req as Request & { cookies?: Record<string, string> }).cookies;
+  return cookies?.[SESSION_COOKIE];
+}
+
+export function requireUser(db: Knex, secret: string) {
+  return async (req: Request, _res: Response, next: NextFunction) => {
+    const token = tokenFrom(req);
+    const claims = token ? verifyToken(secret, token) : null;
+    if (!claims) return next(new HttpError(401, 'unauthenticated', 'sign in first'));
+    const user = await db('users')
+      .select('id', 'email', 'name', 'tokens_valid_after')
+      .where({ id: claims.sub })
+      .first();
+    if (!user || new Date(user.tokens_valid_after).getTime() > claims.issuedAtMs) {
+      return next(new HttpError(401, 'unauthenticated', 'session expired; sign in again'));
+    }
+    req.user = { id: user.id, email: user.email, name: user.name };
+    next();
+  };
+}

@@ -1,0 +1,99 @@
+/** The CLI commands over the engine; each validates its request and times only engine work. */
+import { z } from 'zod';
+import { priceOptions } from '../../src/engine/pricing';
+import { marketSchema, modelSchema, MAX_EXPIRY_YEARS, stressSchema } from '../../src/engine/schema';
+import { smileSurface, type SmileSurface } from '../../src/engine/smile';
+import { applyStress, isIdentityStress } from '../../src/engine/stress';
+import type { Market, Model, OptionSpec } from '../../src/engine/types';
+import { parseScenario } from '../../src/engine/validate-model';
+import { CliError } from './io';
+
+function parse<T>(schema: z.ZodType<T>, value: unknown): T {
+  const r = schema.safeParse(value);
+  if (r.success) return r.data;
+  const issue = r.error.issues[0];
+  const path = issue.path.map(String).join('.') || '(request)';
+  throw new CliError('invalid-input', `${path}: ${issue.message}`, path);
+}
+
+const optionSchema = z.object({
+  type: z.enum(['call', 'put'], { error: 'must be "call" or "put"' }),
+  strike: z.number().refine((x) => Number.isFinite(x) && x > 0, 'must be a positive number'),
+  expiry: z
+    .number()
+    .refine(
+      (x) => Number.isFinite(x) && x > 0 && x <= MAX_EXPIRY_YEARS,
+      `must be above 0 and at most ${MAX_EXPIRY_YEARS} years`,
+    ),
+});
+
+const priceRequest = z.object({
+  market: marketSchema,
+  model: modelSchema,
+  options: z.array(optionSchema).min(1, 'needs at least one option').max(100000),
+});
+
+export function price(request: unknown) {
+  const req = parse(priceRequest, request);
+  const started = performance.now();
+  const results = priceOptions(
+    req.market as Market,
+    req.model as Model,
+    req.options as OptionSpec[],
+  );
+  const elapsedMs = performance.now() - started;
+  return {
+    results: results.map((r) => ({
+      price: r.price,
+      impliedVol: r.impliedVol,
+      delta: r.delta,
+      gamma: r.gamma,
+      vega: r.vega,
+      theta: r.theta,
+      ...(r.note ? { note: r.note } : {}),
+    })),
+    elapsedMs,
+  };
+}
+
+function surfaceJson(surface: SmileSurface) {
+  return {
+    expiries: surface.slices.map((s) => s.expiry),
+    forwards: surface.slices.map((s) => s.forward),
+    strikes: surface.slices.map((s) => s.strikes),
+    impliedVols: surface.slices.map((s) => s.impliedVols),
+    atm: surface.slices.map((s) => s.atm),
+    rr25: surface.slices.map((s) => s.rr25),
+    bf25: surface.slices.map((s) => s.bf25),
+  };
+}
+
+export function smile(request: unknown) {
+  const parsed = parseScenario(request);
+  if (!parsed.ok) {
+    const i = parsed.issues[0];
+    throw new CliError('invalid-input', `${i.path}: ${i.message}`, i.path);
+  }
+  const doc = parsed.value;
+  parse(stressSchema.optional(), doc.stress);
+  const started = performance.now();
+  const base = smileSurface(doc.market, doc.model, doc.grid.expiries, doc.grid.moneyness);
+  let stressed: SmileSurface | undefined;
+  if (!isIdentityStress(doc.stress)) {
+    const s = applyStress(doc.market, doc.model, doc.stress ?? {});
+    if (s.issues.length > 0) {
+      throw new CliError(
+        'invalid-stress',
+        `${s.issues[0].path}: ${s.issues[0].message}`,
+        s.issues[0].path,
+      );
+    }
+    stressed = smileSurface(s.market, s.model, doc.grid.expiries, doc.grid.moneyness);
+  }
+  const elapsedMs = performance.now() - started;
+  return {
+    ...surfaceJson(base),
+    ...(stressed ? { stressed: surfaceJson(stressed) } : {}),
+    elapsedMs,
+  };
+}

@@ -1,0 +1,37 @@
+/**
+ * `npm run -s cli -- <command> [--in FILE]`: reads one JSON request (stdin or FILE), writes one
+ * JSON response. Bad input exits 2 with {"error": {code, message, path}} on stderr and nothing on
+ * stdout.
+ */
+import { price, smile } from './commands';
+import { CliError, fail, readRequest } from './io';
+
+const COMMANDS: Record<string, (request: unknown) => unknown> = { price, smile };
+const LATER = ['calibrate', 'simulate', 'replay', 'revalue'];
+
+function main(argv: string[]) {
+  const [command, ...rest] = argv;
+  if (!command || command === '--help' || command === 'help') {
+    process.stdout.write(
+      `usage: npm run -s cli -- <${Object.keys(COMMANDS).join('|')}> [--in request.json]\n`,
+    );
+    return;
+  }
+  const handler = COMMANDS[command];
+  if (!handler) {
+    const message = LATER.includes(command)
+      ? `"${command}" is not available in this version of Saltation`
+      : `unknown command "${command}"; commands: ${Object.keys(COMMANDS).join(', ')}`;
+    fail(new CliError('unknown-command', message));
+  }
+  const request = readRequest(rest);
+  const response = handler(request);
+  process.stdout.write(JSON.stringify(response) + '\n');
+}
+
+try {
+  main(process.argv.slice(2));
+} catch (error) {
+  if (error instanceof CliError) fail(error);
+  fail(new CliError('internal', `unexpected failure: ${(error as Error).message}`));
+}

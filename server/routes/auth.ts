@@ -1,0 +1,90 @@
+/** Accounts: register, sign in (JSON token and session cookie), sign out, current user. */
+import { Router, type Response } from 'express';
+import rateLimit from 'express-rate-limit';
+import type { Knex } from 'knex';
+import { z } from 'zod';
+import { hashPassword, verifyPassword } from '../auth/passwords';
+import { requireUser } from '../auth/session';
+import { issueToken, SESSION_COOKIE, SESSION_SECONDS } from '../auth/tokens';
+import { HttpError, parseOr400 } from '../errors';
+
+const email = z.string().trim().toLowerCase().email('must be an e-mail address').max(254);
+const registerBody = z.object({
+  email,
+  password: z.string().min(10, 'must be at least 10 characters').max(200),
+  name: z.string().trim().min(1, 'must not be empty').max(100),
+});
+const signinBody = z.object({ email, password: z.string().min(1).max(200) });
+
+function setSessionCookie(res: Response, token: string, secure: boolean) {
+  res.cookie(SESSION_COOKIE, token, {
+    httpOnly: true,
+    sameSite: 'strict',
+    secure,
+    maxAge: SESSION_SECONDS * 1000,
+    path: '/',
+  });
+}
+
+export function authRouter(db: Knex, secret: string, secureCookies: boolean): Router {
+  const r = Router();
+  // The limiters run before argon2, so a flood of bad sign-ins cannot starve the thread pool.
+  const perAddress = rateLimit({
+    windowMs: 60_000,
+    limit: 30,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+  });
+  const perAccount = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: 10,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) =>
+      `acct:${String(req.body?.email ?? '')
+        .trim()
+        .toLowerCase()}`,
+    skipSuccessfulRequests: true,
+  });
+
+  r.post('/auth/register', perAddress, async (req, res) => {
+    const body = parseOr400(registerBody, req.body, 'body');
+    const taken = await db('users').whereRaw('lower(email) = ?', [body.email]).first();
+    if (taken)
+      throw new HttpError(409, 'email-taken', 'an account with this e-mail exists', 'body.email');
+    const [user] = await db('users')
+      .insert({
+        email: body.email,
+        name: body.name,
+        password_hash: await hashPassword(body.password),
+      })
+      .returning(['id', 'email', 'name']);
+    res.status(201).json({ user });
+  });
+
+  r.post('/auth/signin', perAddress, perAccount, async (req, res) => {
+    const body = parseOr400(signinBody, req.body, 'body');
+    const row = await db('users').whereRaw('lower(email) = ?', [body.email]).first();
+    const ok = await verifyPassword(row?.password_hash, body.password);
+    if (!row || !ok) throw new HttpError(401, 'bad-credentials', 'e-mail or password is wrong');
+    const token = issueToken(secret, row.id);
+    setSessionCookie(res, token, secureCookies);
+    res.json({ user: { id: row.id, email: row.email, name: row.name }, token });
+  });
+
+  r.post('/auth/signout', requireUser(db, secret), async (req, res) => {
+    await db('users').where({ id: req.user!.id }).update({ tokens_valid_after: db.fn.now() });
+    res.clearCookie(SESSION_COOKIE, { path: '/' });
+    res.json({ ok: true });
+  });
+
+  r.get('/me', requireUser(db, secret), async (req, res) => {
+    const desks = await db('desk_members as m')
+      .join('desks as d', 'd.id', 'm.desk_id')
+      .where('m.user_id', req.user!.id)
+      .select('d.id', 'd.name', 'm.role')
+      .orderBy('d.name');
+    res.json({ user: req.user, desks });
+  });
+  return r;
+}

@@ -1,0 +1,28 @@
+import { useRegisterSW } from 'virtual:pwa-register/react';
+
+/** Offers a new version once its service worker is waiting; never reloads on its own. */
+export function UpdatePrompt() {
+  const {
+    needRefresh: [needRefresh, setNeedRefresh],
+    updateServiceWorker,
+  } = useRegisterSW();
+  if (!needRefresh) return null;
+  return (
+    <div
+      role="status"
+      className="flex items-center gap-3 border-b border-rule bg-teal/10 px-6 py-2 text-sm"
+    >
+      A new version of Saltation is ready.
+      <button
+        type="button"
+        className="font-semibold text-teal underline"
+        onClick={() => void updateServiceWorker(true)}
+      >
+        Reload to update
+      </button>
+      <button type="button" className="text-muted" onClick={() => setNeedRefresh(false)}>
+        Later
+      </button>
+    </div>
+  );
+}

@@ -1,0 +1,34 @@
+/** Chart colours from the theme's CSS variables, so Plotly follows light and dark. */
+function cssColor(name: string, fallback: string): string {
+  if (typeof document === 'undefined') return fallback;
+  const v = getComputedStyle(document.documentElement).getPropertyValue(name).trim();
+  return v ? `rgb(${v.split(/\s+/).join(',')})` : fallback;
+}
+
+export interface ChartTheme {
+  ink: string;
+  muted: string;
+  grid: string;
+  paper: string;
+  base: string;
+  stressed: string;
+  teal: string;
+}
+
+export function chartTheme(): ChartTheme {
+  return {
+    ink: cssColor('--ink', '#1F2A30'),
+    muted: cssColor('--muted', '#5E6A70'),
+    grid: cssColor('--rule', '#E7E3DA'),
+    paper: cssColor('--paper', '#FBFAF7'),
+    base: cssColor('--base', '#3B6EA5'),
+    stressed: cssColor('--stressed', '#E4572E'),
+    teal: cssColor('--teal', '#0F766E'),
+  };
+}
+
+export const PLOT_CONFIG = {
+  displaylogo: false,
+  responsive: true,
+  modeBarButtonsToRemove: ['lasso2d', 'select2d'],
+} as const;

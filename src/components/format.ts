@@ -1,0 +1,33 @@
+/** Display formatting: tenors, vols in percent, money, dates. */
+export function formatTenor(years: number): string {
+  const days = Math.round(years * 365);
+  if (days <= 0) return `${(years * 365).toFixed(2)}D`;
+  if (days < 7) return `${days}D`;
+  if (days % 7 === 0 && days < 28) return `${days / 7}W`;
+  if (days < 365) {
+    const months = years * 12;
+    return Math.abs(months - Math.round(months)) < 0.03 ? `${Math.round(months)}M` : `${days}D`;
+  }
+  const y = years;
+  return Math.abs(y - Math.round(y)) < 0.01 ? `${Math.round(y)}Y` : `${y.toFixed(2)}Y`;
+}
+
+export function formatVol(v: number | null | undefined, digits = 2): string {
+  return v === null || v === undefined || !Number.isFinite(v)
+    ? '—'
+    : `${(100 * v).toFixed(digits)}`;
+}
+
+export function formatNumber(v: number | null | undefined, digits = 4): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
+  return v.toLocaleString('en-US', {
+    minimumFractionDigits: digits,
+    maximumFractionDigits: digits,
+  });
+}
+
+export function formatSigned(v: number | null | undefined, digits = 2): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
+  const s = v.toFixed(digits);
+  return v > 0 ? `+${s}` : s;
+}

@@ -1,0 +1,203 @@
+/**
+ * COS method (Fang & Oosterlee 2008, "A novel pricing method for European options based on
+ * Fourier-cosine series expansions", SIAM J. Sci. Comput. 31(2)) for a strip of strikes sharing
+ * one expiry. The density of Y = ln(S_T/F) on [a, b] is expanded in cosines; the coefficients
+ * A_n = (2/(b−a)) Re[φ(u_n) e^{−i u_n a}], u_n = nπ/(b−a), are computed once per expiry and
+ * reused for every strike. Out-of-the-money options are priced directly (puts below the
+ * forward, calls at and above it, unless the range reaches so far up that e^b would swamp the
+ * call coefficients); the other side follows from put-call parity.
+ */
+import { logCharacteristic, type ModelSpec } from './characteristic';
+import { cumulants } from './cumulants';
+
+export interface CosSettings {
+  /** truncation width in units of √(c2 + √c4) (Fang & Oosterlee section 5.1) */
+  width: number;
+  /** stop adding terms once |φ(u_n)| stays below this over a whole block */
+  tailTolerance: number;
+  minTerms: number;
+  maxTerms: number;
+}
+
+export const DEFAULT_COS_SETTINGS: CosSettings = {
+  width: 12,
+  tailTolerance: 1e-15,
+  minTerms: 64,
+  maxTerms: 1 << 16,
+};
+
+export interface CosExpiry {
+  expiry: number;
+  a: number;
+  b: number;
+  terms: number;
+  /** u_n = nπ/(b − a) */
+  u: Float64Array;
+  /** A_n with the n = 0 term halved */
+  coef: Float64Array;
+  /** true when maxTerms was reached before the characteristic function decayed */
+  capped: boolean;
+}
+
+const BLOCK = 64;
+/**
+ * Above this upper bound the call coefficients carry e^b and cancel badly (Fang & Oosterlee
+ * section 3.3), so calls are priced from puts by parity instead.
+ */
+const DIRECT_CALL_LIMIT = 5;
+
+/** Extra half-width so the range also holds one jump's tail (c2/c4 alone understate it). */
+function jumpExtent(spec: ModelSpec, T: number): number {
+  const j = spec.jumps;
+  if (j.type === 'none' || !(j.lambda * T > 0)) return 0;
+  if (j.type === 'lognormal') return Math.abs(j.mean) + 8.5 * j.stdev;
+  return 37 * Math.max(j.upMean, j.downMean);
+}
+
+export function prepareCos(
+  spec: ModelSpec,
+  T: number,
+  settings: CosSettings = DEFAULT_COS_SETTINGS,
+): CosExpiry {
+  const { c1, c2, c4 } = cumulants(spec, T);
+  const half = settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T);
+  const a = c1 - half;
+  const b = c1 + half;
+  const step = Math.PI / (b - a);
+  let capacity = Math.max(settings.minTerms, 4 * BLOCK);
+  let wr: Float64Array = new Float64Array(capacity);
+  let wi: Float64Array = new Float64Array(capacity);
+  let re: Float64Array = new Float64Array(capacity);
+  let im: Float64Array = new Float64Array(capacity);
+  let n = 0;
+  let capped = false;
+  for (;;) {
+    if (n + BLOCK > capacity) {
+      capacity = Math.min(settings.maxTerms, capacity * 2);
+      if (n + BLOCK > capacity) {
+        capped = true;
+        break;
+      }
+      wr = grow(wr, capacity);
+      wi = grow(wi, capacity);
+      re = grow(re, capacity);
+      im = grow(im, capacity);
+    }
+    for (let k = n; k < n + BLOCK; k++) wi[k] = k * step;
+    logCharacteristic(
+      spec,
+      T,
+      wr.subarray(n),
+      wi.subarray(n),
+      re.subarray(n),
+      im.subarray(n),
+      BLOCK,
+    );
+    let blockMax = -Infinity;
+    for (let k = n; k < n + BLOCK; k++) blockMax = Math.max(blockMax, re[k]);
+    n += BLOCK;
+    if (n >= settings.minTerms && Math.exp(blockMax) < settings.tailTolerance) break;
+  }
+  const u = new Float64Array(n);
+  const coef = new Float64Array(n);
+  const scale = 2 / (b - a);
+  for (let k = 0; k < n; k++) {
+    const uk = k * step;
+    u[k] = uk;
+    // Re[e^{lnφ} e^{−i u a}] = e^{Re lnφ} cos(Im lnφ − u a)
+    coef[k] = scale * Math.exp(re[k]) * Math.cos(im[k] - uk * a);
+  }
+  coef[0] *= 0.5;
+  return { expiry: T, a, b, terms: n, u, coef, capped };
+}
+
+function grow(arr: Float64Array, size: number): Float64Array {
+  const out = new Float64Array(size);
+  out.set(arr);
+  return out;
+}
+
+/**
+ * Undiscounted prices per unit forward, E[(e^Y − e^k)^+] (call) and E[(e^k − e^Y)^+] (put), with
+ * the CDF and density of Y at k, for each log-moneyness k = ln(K/F). Writes into the arrays given.
+ */
+export function cosStrip(
+  prep: CosExpiry,
+  logMoneyness: ArrayLike<number>,
+  call: Float64Array,
+  put: Float64Array,
+  cdf: Float64Array,
+  density: Float64Array,
+): void {
+  const { a, b, terms, u, coef } = prep;
+  const ea = Math.exp(a);
+  const eb = Math.exp(b);
+  const step = Math.PI / (b - a);
+  for (let j = 0; j < logMoneyness.length; j++) {
+    const k = logMoneyness[j];
+    const ek = Math.exp(k);
+    if (k <= a) {
+      put[j] = 0;
+      call[j] = 1 - ek;
+      cdf[j] = 0;
+      density[j] = 0;
+      continue;
+    }
+    if (k >= b) {
+      call[j] = 0;
+      put[j] = ek - 1;
+      cdf[j] = 1;
+      density[j] = 0;
+      continue;
+    }
+    // cos/sin of n·Δ by rotation, Δ = π(k − a)/(b − a)
+    const delta = step * (k - a);
+    const cd = Math.cos(delta);
+    const sd = Math.sin(delta);
+    let cn = 1;
+    let sn = 0;
+    let sumPsi = coef[0] * (k - a); // Σ A_n ψ_n(a, k)
+    let sumChi = coef[0] * (ek - ea); // Σ A_n χ_n(a, k)
+    let sumCos = coef[0];
+    let sign = -1;
+    let sumAlt = coef[0] * eb; // Σ A_n (−1)^n e^b / (1 + u²) for the call's χ_n(k, b)
+    let sumChiK = coef[0] * ek; // Σ A_n [cos_n + u sin_n] e^k / (1 + u²)
+    for (let n = 1; n < terms; n++) {
+      const c = cn * cd - sn * sd;
+      sn = sn * cd + cn * sd;
+      cn = c;
+      const un = u[n];
+      const an = coef[n];
+      const inv = 1 / (1 + un * un);
+      const chiK = (cn + un * sn) * ek * inv;
+      sumPsi += (an * sn) / un;
+      sumChi += an * (chiK - ea * inv);
+      sumCos += an * cn;
+      sumAlt += an * sign * eb * inv;
+      sumChiK += an * chiK;
+      sign = -sign;
+    }
+    if (k < 0 || b > DIRECT_CALL_LIMIT) {
+      // put on [a, k]: V_n = e^k ψ_n(a, k) − χ_n(a, k)
+      const p = ek * sumPsi - sumChi;
+      put[j] = Math.max(p, 0);
+      call[j] = put[j] + 1 - ek;
+    } else {
+      // call on [k, b]: V_n = χ_n(k, b) − e^k ψ_n(k, b), ψ_n(k, b) = (b − k) for n = 0, −sin_n/u_n
+      const psiKB = coef[0] * (b - k) - (sumPsi - coef[0] * (k - a));
+      const c = sumAlt - sumChiK - ek * psiKB;
+      call[j] = Math.max(c, 0);
+      put[j] = call[j] - 1 + ek;
+    }
+    cdf[j] = Math.min(1, Math.max(0, sumPsi));
+    density[j] = Math.max(0, sumCos);
+  }
+}
+
+/** Density of Y at y from the cosine series, f(y) = Σ' A_n cos(u_n (y − a)). */
+export function cosDensity(prep: CosExpiry, y: number): number {
+  if (y <= prep.a || y >= prep.b) return 0;
+  let sum = 0;
+  for (let n = 0; n < prep.terms; n++) sum += prep.coef[n] * Math.cos(prep.u[n] * (y - prep.a));
+  return Math.max(0, sum);
+}

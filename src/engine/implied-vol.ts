@@ -1,0 +1,118 @@
+/**
+ * Implied Black volatility: a closed-form or asymptotic initial guess, then safeguarded
+ * third-order Householder steps on the normalised price (Jäckel 2015, "Let's Be Rational",
+ * eqs. 2.x for the normalised price and its s-derivatives; section 4 for the Householder form).
+ * Below the inflection point s_c = √(2|x|) the objective is ln b(s) − ln β, above it b(s) − β,
+ * the split Jäckel uses to keep each objective nearly linear. A bracket [lo, hi] is kept and any
+ * step that leaves it is replaced by bisection, so the method cannot diverge.
+ */
+import { normalisedBlack, normalisedOtmCall } from './black';
+import { normInv } from './normal';
+
+const INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
+
+export type ImpliedVolFailure = 'below-intrinsic' | 'above-maximum' | 'too-small' | 'bad-input';
+
+export interface ImpliedVolResult {
+  vol: number | null;
+  failure?: ImpliedVolFailure;
+}
+
+/**
+ * σ√T such that the normalised OTM call b(x, s) equals beta; x ≤ 0, 0 < beta < e^{x/2}.
+ */
+export function normalisedImpliedSigma(x: number, beta: number): number {
+  const ax = Math.abs(x);
+  const bMax = Math.exp(-0.5 * ax);
+  const xx = ax * ax;
+  const sC = Math.sqrt(2 * ax);
+  const bC = normalisedOtmCall(-ax, sC);
+  const lower = beta < bC;
+  let s: number;
+  if (ax === 0) {
+    s = -2 * normInv(0.5 * (1 - beta));
+  } else if (lower) {
+    s = Math.min(sC, ax / Math.sqrt(-2 * Math.log(beta)));
+  } else {
+    s = Math.max(sC, -2 * normInv((0.5 * (bMax - beta)) / bMax));
+  }
+  if (!(s > 0) || !Number.isFinite(s)) s = sC > 0 ? sC : 0.5;
+  let lo = 0;
+  let hi = Infinity;
+  const lnBeta = Math.log(beta);
+  for (let iter = 0; iter < 100; iter++) {
+    const b = normalisedOtmCall(-ax, s);
+    if (b > beta) hi = Math.min(hi, s);
+    else lo = Math.max(lo, s);
+    const h = ax / s;
+    const t = 0.5 * s;
+    const b1 = Math.exp(-0.5 * (h * h + t * t)) * INV_SQRT_2PI;
+    const k = xx / (s * s * s) - 0.25 * s;
+    const b2 = b1 * k;
+    const b3 = b1 * (k * k - (3 * xx) / (s * s * s * s) - 0.25);
+    let f: number, f1: number, f2: number, f3: number;
+    if (lower && b > 0) {
+      const r1 = b1 / b;
+      f = Math.log(b) - lnBeta;
+      f1 = r1;
+      f2 = b2 / b - r1 * r1;
+      f3 = b3 / b - (3 * b2 * b1) / (b * b) + 2 * r1 * r1 * r1;
+    } else {
+      f = b - beta;
+      f1 = b1;
+      f2 = b2;
+      f3 = b3;
+    }
+    let next: number;
+    if (f1 > 0 && Number.isFinite(f)) {
+      const nu = -f / f1;
+      const h2 = f2 / f1;
+      const h3 = f3 / f1;
+      const denom = 1 + h2 * nu + (h3 * nu * nu) / 6;
+      const step = denom !== 0 ? (nu * (1 + 0.5 * h2 * nu)) / denom : nu;
+      next = s + (Number.isFinite(step) ? step : nu);
+    } else {
+      next = NaN;
+    }
+    if (!(next > lo && next < hi) || !Number.isFinite(next)) {
+      next = Number.isFinite(hi) ? (lo > 0 ? Math.sqrt(lo * hi) : 0.5 * hi) : Math.max(2 * s, 1);
+    }
+    if (Math.abs(next - s) <= 4e-16 * s) return next;
+    if (Number.isFinite(hi) && hi - lo <= 4e-16 * hi) return next;
+    s = next;
+  }
+  return s;
+}
+
+export interface ImpliedVolInputs {
+  price: number;
+  forward: number;
+  strike: number;
+  expiry: number;
+  discount: number;
+  isCall: boolean;
+}
+
+/**
+ * Black implied volatility of a discounted European price; `vol: null` outside the
+ * no-arbitrage bounds (below intrinsic, at or above the forward/strike bound) or when the
+ * time value is too small relative to √(FK) for the volatility to be determined.
+ */
+export function impliedVol(p: ImpliedVolInputs): ImpliedVolResult {
+  const { price, forward: F, strike: K, expiry: T, discount: df } = p;
+  if (!(F > 0 && K > 0 && T > 0 && df > 0 && Number.isFinite(price))) {
+    return { vol: null, failure: 'bad-input' };
+  }
+  const theta: 1 | -1 = p.isCall ? 1 : -1;
+  const x = Math.log(F / K);
+  const scale = df * Math.sqrt(F * K);
+  const beta = price / scale;
+  const intrinsic = normalisedBlack(x, 0, theta);
+  const timeValue = beta - intrinsic;
+  const bMax = theta === 1 ? Math.exp(0.5 * x) : Math.exp(-0.5 * x);
+  if (beta >= bMax) return { vol: null, failure: 'above-maximum' };
+  if (timeValue < 0) return { vol: null, failure: 'below-intrinsic' };
+  if (timeValue <= 1e-14 * Math.max(1, intrinsic)) return { vol: null, failure: 'too-small' };
+  const s = normalisedImpliedSigma(-Math.abs(x), timeValue);
+  return { vol: s / Math.sqrt(T) };
+}

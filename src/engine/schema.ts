@@ -1,0 +1,121 @@
+/**
+ * The scenario document `saltation/scenario@1` and its parts, as zod schemas shared by the
+ * browser, the sync service and the command line. Objects are loose: unknown fields are
+ * kept on a round trip. Bounds are the model's domain (where its formulas hold) plus generous
+ * practical limits that keep every number finite.
+ */
+import { z } from 'zod';
+import type { Stress } from './stress';
+import type { Market, Model } from './types';
+
+export const SCENARIO_FORMAT = 'saltation/scenario@1';
+
+// A missing field reads "is required" rather than zod's type message.
+z.config({
+  customError: (issue) =>
+    issue.code === 'invalid_type' && issue.input === undefined ? 'is required' : undefined,
+});
+
+const finite = z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be finite');
+const bounded = (lo: number, hi: number, what = '') =>
+  finite.refine((x) => x >= lo && x <= hi, `must be between ${lo} and ${hi}${what}`);
+const positiveUpTo = (hi: number) =>
+  finite.refine((x) => x > 0 && x <= hi, `must be above 0 and at most ${hi}`);
+
+const curve = z
+  .array(z.tuple([bounded(0, 100), bounded(-1, 1)]), { error: 'must be a list of [t, rate] pairs' })
+  .min(1, 'needs at least one [t, rate] pair')
+  .refine(
+    (pts) => pts.every((p, i) => i === 0 || p[0] > pts[i - 1][0]),
+    'times must be strictly increasing',
+  );
+
+export const marketSchema = z.looseObject({
+  spot: positiveUpTo(1e9),
+  rate: bounded(-1, 1).optional(),
+  dividendYield: bounded(-1, 1).optional(),
+  rateCurve: curve.optional(),
+  dividendCurve: curve.optional(),
+});
+
+const hestonFields = {
+  v0: bounded(0, 5),
+  kappa: positiveUpTo(100),
+  theta: positiveUpTo(5),
+  volOfVol: bounded(0, 10),
+  rho: bounded(-1, 1),
+};
+const lognormalJumpFields = {
+  jumpIntensity: bounded(0, 1000),
+  jumpMean: bounded(-5, 5),
+  jumpStdev: bounded(0, 5),
+};
+
+export const modelSchema = z.discriminatedUnion(
+  'kind',
+  [
+    z.looseObject({ kind: z.literal('black-scholes'), sigma: positiveUpTo(5) }),
+    z.looseObject({ kind: z.literal('heston'), ...hestonFields }),
+    z.looseObject({ kind: z.literal('merton'), sigma: positiveUpTo(5), ...lognormalJumpFields }),
+    z.looseObject({ kind: z.literal('bates'), ...hestonFields, ...lognormalJumpFields }),
+    z.looseObject({
+      kind: z.literal('heston-kou'),
+      ...hestonFields,
+      jumpIntensity: bounded(0, 1000),
+      upProbability: bounded(0, 1),
+      upMean: finite.refine((x) => x >= 0 && x < 1, 'must be at least 0 and below 1 (η1 > 1)'),
+      downMean: bounded(0, 5),
+    }),
+  ],
+  { error: 'must be one of black-scholes, heston, merton, bates, heston-kou' },
+);
+
+export const stressSchema = z.looseObject({
+  jumpIntensityScale: bounded(0, 100).optional(),
+  jumpMeanShift: bounded(-5, 5).optional(),
+  jumpStdevScale: bounded(0, 100).optional(),
+  spotShift: bounded(-0.99, 10).optional(),
+  volOfVolScale: bounded(0, 100).optional(),
+  v0Scale: bounded(0, 100).optional(),
+});
+
+export const MAX_EXPIRY_YEARS = 50;
+
+export const gridSchema = z.looseObject({
+  expiries: z
+    .array(positiveUpTo(MAX_EXPIRY_YEARS), { error: 'must be a list of year fractions' })
+    .min(1, 'needs at least one expiry')
+    .max(64, 'at most 64 expiries'),
+  moneyness: z
+    .array(bounded(-5, 5), { error: 'must be a list of log-moneyness values' })
+    .min(1, 'needs at least one point')
+    .max(401, 'at most 401 points'),
+});
+
+export const scenarioSchema = z.looseObject({
+  format: z.literal(SCENARIO_FORMAT, { error: `must be "${SCENARIO_FORMAT}"` }),
+  id: z.string().min(1, 'must not be empty').max(100),
+  name: z.string().trim().min(1, 'must not be empty').max(200, 'at most 200 characters'),
+  notes: z.string().max(20000).optional(),
+  valuationDate: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date YYYY-MM-DD'),
+  market: marketSchema,
+  model: modelSchema,
+  stress: stressSchema.optional(),
+  grid: gridSchema,
+  runs: z.array(z.looseObject({})).optional(),
+});
+
+/** A validated scenario document; unknown fields ride along untouched. */
+export interface ScenarioDocument {
+  format: typeof SCENARIO_FORMAT;
+  id: string;
+  name: string;
+  notes?: string;
+  valuationDate: string;
+  market: Market;
+  model: Model;
+  stress?: Partial<Stress>;
+  grid: { expiries: number[]; moneyness: number[]; [key: string]: unknown };
+  runs?: Record<string, unknown>[];
+  [key: string]: unknown;
+}

@@ -1,0 +1,27 @@
+import { createBrowserRouter } from 'react-router';
+import { AppShell } from './components/AppShell';
+import { BookPage } from './routes/book';
+import { DeskPage } from './routes/desk';
+import { FitPage } from './routes/fit';
+import { LibraryPage } from './routes/library';
+import { NotFoundPage } from './routes/not-found';
+import { PathsPage } from './routes/paths';
+import { ReplayPage } from './routes/replay';
+import { SketchPage } from './routes/sketch';
+
+export const router = createBrowserRouter([
+  {
+    path: '/',
+    element: <AppShell />,
+    children: [
+      { index: true, element: <SketchPage /> },
+      { path: 'book', element: <BookPage /> },
+      { path: 'fit', element: <FitPage /> },
+      { path: 'paths', element: <PathsPage /> },
+      { path: 'replay', element: <ReplayPage /> },
+      { path: 'library', element: <LibraryPage /> },
+      { path: 'desk', element: <DeskPage /> },
+      { path: '*', element: <NotFoundPage /> },
+    ],
+  },
+]);

@@ -1,0 +1,71 @@
+/**
+ * The browser's own database (IndexedDB through Dexie): the user's scenarios, the outbox of
+ * edits not yet pushed to the sync service, and a cache of computed results. The browser is the
+ * source of truth while offline: every edit lands here first.
+ */
+import Dexie, { type EntityTable } from 'dexie';
+import type { ScenarioDocument } from '../engine/schema';
+
+export type SyncState = 'local' | 'synced' | 'pending' | 'conflict';
+
+export interface StoredScenario {
+  id: string;
+  name: string;
+  document: ScenarioDocument;
+  setId: string | null;
+  /** server revision this copy is based on (0: never pushed) */
+  revision: number;
+  syncState: SyncState;
+  updatedAt: number;
+}
+
+export interface OutboxEntry {
+  seq?: number;
+  mutationId: string;
+  scenarioId: string;
+  baseRevision: number;
+  deleted: boolean;
+  createdAt: number;
+}
+
+export interface CachedResult {
+  key: string;
+  kind: string;
+  value: unknown;
+  bytes: number;
+  createdAt: number;
+  lastUsedAt: number;
+}
+
+export class SaltationDb extends Dexie {
+  scenarios!: EntityTable<StoredScenario, 'id'>;
+  outbox!: EntityTable<OutboxEntry, 'seq'>;
+  results!: EntityTable<CachedResult, 'key'>;
+
+  constructor(name = 'saltation') {
+    super(name, { chromeTransactionDurability: 'strict' });
+    this.version(1).stores({
+      scenarios: 'id, name, setId, syncState, updatedAt',
+      outbox: '++seq, mutationId, scenarioId',
+      results: 'key, kind, lastUsedAt',
+    });
+  }
+}
+
+let instance: SaltationDb | undefined;
+
+/** The app's database, opened once; another tab upgrading the schema makes this one reload. */
+export function appDb(): SaltationDb {
+  if (!instance) {
+    instance = new SaltationDb();
+    instance.on('versionchange', () => {
+      instance?.close();
+      if (typeof location !== 'undefined') location.reload();
+      return false;
+    });
+    if (typeof navigator !== 'undefined' && navigator.storage?.persist) {
+      void navigator.storage.persist().catch(() => undefined);
+    }
+  }
+  return instance;
+}

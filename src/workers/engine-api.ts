@@ -1,0 +1,48 @@
+/** Every command the engine worker answers; the page side and the worker share this contract. */
+import type { SmileSurface } from '../engine/smile';
+import type { Stress } from '../engine/stress';
+import type { FieldIssue } from '../engine/validate-model';
+import type { OptionResult } from '../engine/pricing';
+import type { Market, Model, OptionSpec } from '../engine/types';
+
+export interface PriceRequest {
+  market: Market;
+  model: Model;
+  options: OptionSpec[];
+}
+
+export interface PriceResponse {
+  results: OptionResult[];
+  elapsedMs: number;
+}
+
+export interface SmileRequest {
+  market: Market;
+  model: Model;
+  stress?: Partial<Stress>;
+  expiries: number[];
+  moneyness: number[];
+  /** expiry at which to sample the log-return density (optional) */
+  densityExpiry?: number;
+}
+
+export interface DensityCurve {
+  points: number[];
+  base: number[];
+  stressed: number[] | null;
+}
+
+export interface SmileResponse {
+  base: SmileSurface;
+  stressed: SmileSurface | null;
+  stressIssues: FieldIssue[];
+  density: DensityCurve | null;
+  elapsedMs: number;
+  engineVersion: string;
+}
+
+export interface EngineApi {
+  info(): { engineVersion: string };
+  smiles(request: SmileRequest): SmileResponse;
+  price(request: PriceRequest): PriceResponse;
+}

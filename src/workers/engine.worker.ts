@@ -1,0 +1,4 @@
+import { expose } from 'comlink';
+import { engineHandlers } from './engine-handlers';
+
+expose(engineHandlers);
