@@ -55,14 +55,12 @@ export function errorHandler(log: (line: string) => void): ErrorRequestHandler {
         String(e.message),
       );
     if (dbDown) {
-      res
-        .status(503)
-        .json({
-          error: {
-            code: 'database-unavailable',
-            message: 'the database is unavailable; try again shortly',
-          },
-        });
+      res.status(503).json({
+        error: {
+          code: 'database-unavailable',
+          message: 'the database is unavailable; try again shortly',
+        },
+      });
       return;
     }
     log(`unhandled error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`);

@@ -9,6 +9,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { EmbeddedPostgres, freePort, SetupError } from '../server/bootstrap/postgres';
+import { createDb, migrate, seed } from '../server/db';
 import { ensureChromium } from './e2e/chromium';
 
 function step(
@@ -49,6 +50,13 @@ async function main(): Promise<number> {
   try {
     console.log('Starting a throwaway PostgreSQL…');
     await pg.start();
+    const db = createDb(pg.url);
+    try {
+      await migrate(db);
+      await seed(db);
+    } finally {
+      await db.destroy();
+    }
     const env = {
       ...process.env,
       DATABASE_URL: pg.url,

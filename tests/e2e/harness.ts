@@ -1,0 +1,46 @@
+/** Browser-test harness: the real server on a free loopback port, and Debian's chromium. */
+import type { Server } from 'node:http';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { createApp } from '../../server/app';
+import { freePort } from '../../server/bootstrap/postgres';
+import { testDb } from '../support/database';
+import { CHROMIUM_ARGS, ensureChromium } from './chromium';
+
+const dist = fileURLToPath(new URL('../../dist', import.meta.url));
+
+export interface RunningApp {
+  url: string;
+  close: () => Promise<void>;
+}
+
+export async function startApp(): Promise<RunningApp> {
+  if (!existsSync(`${dist}/index.html`))
+    throw new Error('Build the client first (npm test does): dist/ is missing');
+  const db = testDb();
+  const app = createApp({ db, jwtSecret: 'e2e-secret', staticDir: dist, log: () => undefined });
+  const port = await freePort();
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(port, '127.0.0.1', () => resolve(s));
+  });
+  return {
+    url: `http://127.0.0.1:${port}`,
+    close: async () => {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await db.destroy();
+    },
+  };
+}
+
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({ executablePath: ensureChromium(() => undefined), args: CHROMIUM_ARGS });
+}
+
+/** Collects uncaught page errors so a test can assert there were none. */
+export function trackErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  return errors;
+}

@@ -1,0 +1,65 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, startApp, trackErrors, type RunningApp } from './harness';
+
+let app: RunningApp;
+let browser: Browser;
+
+beforeAll(async () => {
+  app = await startApp();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await app?.close();
+});
+
+describe('the app shell', () => {
+  it('loads with the service status, then still loads offline after a reload', async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const errors = trackErrors(page);
+    await page.goto(app.url);
+    await expect
+      .poll(() => page.getByRole('link', { name: 'Saltation home' }).isVisible())
+      .toBe(true);
+    await expect
+      .poll(() => page.getByTestId('service-status').getAttribute('data-state'), { timeout: 15000 })
+      .toBe('online');
+    // the service worker precaches the shell on install; it controls the page from the next load
+    await page.evaluate(async () => {
+      await navigator.serviceWorker.ready;
+    });
+    await page.reload();
+    await expect
+      .poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null))
+      .toBe(true);
+    await context.setOffline(true);
+    await page.reload();
+    await expect.poll(() => page.getByRole('navigation', { name: 'Pages' }).isVisible()).toBe(true);
+    await expect
+      .poll(() => page.getByTestId('service-status').getAttribute('data-state'), { timeout: 15000 })
+      .toBe('offline');
+    await page.getByRole('link', { name: 'Fit' }).click();
+    await expect.poll(() => page.getByRole('heading', { name: 'Fit' }).isVisible()).toBe(true);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('keeps a scenario created in the Library across a reload', async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const errors = trackErrors(page);
+    await page.goto(`${app.url}/library`);
+    const name = `Weekly crash ladder ${Date.now()}`;
+    await page.getByLabel('New scenario').fill(name);
+    await page.getByRole('button', { name: 'Create' }).click();
+    await expect.poll(() => page.getByRole('link', { name }).count()).toBe(1);
+    await page.reload();
+    await expect.poll(() => page.getByRole('link', { name }).count()).toBe(1);
+    const row = page.getByTestId('scenario-row').filter({ hasText: name });
+    await expect.poll(() => row.textContent()).toContain('local');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});

@@ -1,0 +1,67 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, startApp, trackErrors, type RunningApp } from './harness';
+
+let app: RunningApp;
+let browser: Browser;
+
+beforeAll(async () => {
+  app = await startApp();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await app?.close();
+});
+
+describe('Sketch', () => {
+  it('draws the stressed smile and fills the stressed column when a stress slider is dragged', async () => {
+    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await context.newPage();
+    const errors = trackErrors(page);
+    await page.goto(app.url);
+    const chart = page.getByTestId('smile-chart');
+    await expect.poll(() => chart.getAttribute('data-stressed'), { timeout: 20000 }).toBe('no');
+    await expect
+      .poll(() => page.locator('[data-testid="smile-chart"] .main-svg').count(), { timeout: 20000 })
+      .toBeGreaterThan(0);
+    const cellBefore = await page
+      .getByTestId('smile-table')
+      .locator('tbody tr')
+      .first()
+      .locator('td')
+      .nth(4)
+      .textContent();
+    expect(cellBefore).toBe('—');
+
+    const slider = page.getByTestId('stress-jumpMeanShift');
+    const box = (await slider.boundingBox())!;
+    await page.mouse.move(box.x + box.width * 0.75, box.y + box.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width * 0.4, box.y + box.height / 2, { steps: 8 });
+    await page.mouse.up();
+
+    await expect.poll(() => chart.getAttribute('data-stressed'), { timeout: 20000 }).toBe('yes');
+    const stressedCell = page
+      .getByTestId('smile-table')
+      .locator('tbody tr')
+      .first()
+      .locator('td')
+      .nth(4);
+    await expect.poll(() => stressedCell.textContent(), { timeout: 20000 }).toMatch(/^\d+\.\d\d$/);
+    // a deeper mean jump lifts the far put wing
+    const change = await page
+      .getByTestId('smile-table')
+      .locator('tbody tr')
+      .first()
+      .locator('td')
+      .nth(5)
+      .textContent();
+    expect(Number(change)).toBeGreaterThan(0);
+    await expect
+      .poll(() => page.getByTestId('save-state').getAttribute('data-state'))
+      .toBe('saved');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
