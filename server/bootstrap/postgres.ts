@@ -161,10 +161,11 @@ export class EmbeddedPostgres {
     if (!existsSync(pidFile)) return;
     const pid = Number(readFileSync(pidFile, 'utf8').split('\n')[0]);
     if (Number.isInteger(pid) && pid > 0 && pidAlive(pid)) {
-      throw new SetupError(
-        `PostgreSQL is already running on this data folder (pid ${pid}).\n` +
-          'Stop the other Saltation first, or set SALTATION_DATA_DIR to another folder.',
-      );
+      // Callers check their own web port first, so a live postmaster here was left behind by an
+      // earlier run that was killed rather than stopped: stop it cleanly and start afresh.
+      this.opts.log?.(`Stopping a PostgreSQL left running by an earlier run (pid ${pid}).`);
+      this.run('pg_ctl', ['-D', this.pgdata, '-m', 'fast', '-w', '-t', '30', 'stop']);
+      return;
     }
     this.opts.log?.(`Removing a stale postmaster.pid left by pid ${pid} (not running).`);
     rmSync(pidFile);

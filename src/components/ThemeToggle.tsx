@@ -1,18 +1,14 @@
-import { useState } from 'react';
-import { applyTheme, storedTheme, type Theme } from './theme';
+import { applyTheme, useTheme } from './theme';
 
 export function ThemeToggle() {
-  const [theme, setTheme] = useState<Theme>(storedTheme);
+  const theme = useTheme();
   const next = theme === 'dark' ? 'light' : 'dark';
   return (
     <button
       type="button"
       className="rounded-md border border-rule px-2 py-1 text-sm text-muted hover:text-ink"
       aria-label={`Switch to ${next} theme`}
-      onClick={() => {
-        applyTheme(next);
-        setTheme(next);
-      }}
+      onClick={() => applyTheme(next)}
     >
       {theme === 'dark' ? 'Light' : 'Dark'}
     </button>

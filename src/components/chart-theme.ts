@@ -15,7 +15,9 @@ export interface ChartTheme {
   teal: string;
 }
 
-export function chartTheme(): ChartTheme {
+/** `theme` is only a cache key: the colours are read from the CSS variables in force. */
+export function chartTheme(theme: 'light' | 'dark'): ChartTheme {
+  void theme;
   return {
     ink: cssColor('--ink', '#1F2A30'),
     muted: cssColor('--muted', '#5E6A70'),

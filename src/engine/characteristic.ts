@@ -133,7 +133,7 @@ function hestonLogCf(
     // d = √(β² + ξ² q), principal branch (Re d ≥ 0)
     const zr = br * br - bi * bi + xi2 * qr;
     const zi = 2 * br * bi + xi2 * qi;
-    const mod = Math.hypot(zr, zi);
+    const mod = Math.sqrt(zr * zr + zi * zi);
     let dr: number, di: number;
     if (zr >= 0) {
       dr = Math.sqrt(0.5 * (mod + zr));

@@ -13,7 +13,7 @@ import { cumulants } from './cumulants';
 export interface CosSettings {
   /** truncation width in units of √(c2 + √c4) (Fang & Oosterlee section 5.1) */
   width: number;
-  /** stop adding terms once |φ(u_n)| stays below this over a whole block */
+  /** stop adding terms once |φ(u_n)|/(1 + u_n²) stays below this over a whole block */
   tailTolerance: number;
   minTerms: number;
   maxTerms: number;
@@ -21,7 +21,7 @@ export interface CosSettings {
 
 export const DEFAULT_COS_SETTINGS: CosSettings = {
   width: 12,
-  tailTolerance: 1e-15,
+  tailTolerance: 1e-14,
   minTerms: 64,
   maxTerms: 1 << 16,
 };
@@ -35,6 +35,12 @@ export interface CosExpiry {
   u: Float64Array;
   /** A_n with the n = 0 term halved */
   coef: Float64Array;
+  /** A_n / u_n (0 for n = 0) and A_n / (1 + u_n²), shared by every strike */
+  coefOverU: Float64Array;
+  coefOverU2: Float64Array;
+  /** Σ_{n≥1} A_n/(1 + u_n²) and Σ_{n≥1} (−1)^n A_n/(1 + u_n²), strike-independent */
+  sumOverU2Tail: number;
+  sumAltTail: number;
   /** true when maxTerms was reached before the characteristic function decayed */
   capped: boolean;
 }
@@ -95,8 +101,15 @@ export function prepareCos(
     );
     let blockMax = -Infinity;
     for (let k = n; k < n + BLOCK; k++) blockMax = Math.max(blockMax, re[k]);
+    // The payoff coefficients fall like 1/(1 + u²), so that is the weight a neglected
+    // characteristic-function value carries into a price (per unit forward).
+    const uStart = n * step;
     n += BLOCK;
-    if (n >= settings.minTerms && Math.exp(blockMax) < settings.tailTolerance) break;
+    if (
+      n >= settings.minTerms &&
+      Math.exp(blockMax) / (1 + uStart * uStart) < settings.tailTolerance
+    )
+      break;
   }
   const u = new Float64Array(n);
   const coef = new Float64Array(n);
@@ -108,7 +121,31 @@ export function prepareCos(
     coef[k] = scale * Math.exp(re[k]) * Math.cos(im[k] - uk * a);
   }
   coef[0] *= 0.5;
-  return { expiry: T, a, b, terms: n, u, coef, capped };
+  const coefOverU = new Float64Array(n);
+  const coefOverU2 = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    coefOverU[k] = k === 0 ? 0 : coef[k] / u[k];
+    coefOverU2[k] = coef[k] / (1 + u[k] * u[k]);
+  }
+  let sumOverU2Tail = 0;
+  let sumAltTail = 0;
+  for (let k = 1; k < n; k++) {
+    sumOverU2Tail += coefOverU2[k];
+    sumAltTail += k % 2 === 1 ? -coefOverU2[k] : coefOverU2[k];
+  }
+  return {
+    expiry: T,
+    a,
+    b,
+    terms: n,
+    u,
+    coef,
+    coefOverU,
+    coefOverU2,
+    sumOverU2Tail,
+    sumAltTail,
+    capped,
+  };
 }
 
 function grow(arr: Float64Array, size: number): Float64Array {
@@ -129,7 +166,7 @@ export function cosStrip(
   cdf: Float64Array,
   density: Float64Array,
 ): void {
-  const { a, b, terms, u, coef } = prep;
+  const { a, b, terms, u, coef, coefOverU, coefOverU2 } = prep;
   const ea = Math.exp(a);
   const eb = Math.exp(b);
   const step = Math.PI / (b - a);
@@ -156,27 +193,24 @@ export function cosStrip(
     const sd = Math.sin(delta);
     let cn = 1;
     let sn = 0;
-    let sumPsi = coef[0] * (k - a); // Σ A_n ψ_n(a, k)
-    let sumChi = coef[0] * (ek - ea); // Σ A_n χ_n(a, k)
-    let sumCos = coef[0];
-    let sign = -1;
-    let sumAlt = coef[0] * eb; // Σ A_n (−1)^n e^b / (1 + u²) for the call's χ_n(k, b)
-    let sumChiK = coef[0] * ek; // Σ A_n [cos_n + u sin_n] e^k / (1 + u²)
+    // Sums over n ≥ 1 of A_n sin_n/u_n, A_n cos_n, and A_n (cos_n + u_n sin_n)/(1 + u_n²);
+    // the e^a, e^b and e^k factors are applied once afterwards.
+    let sumSinOverU = 0;
+    let sumCos = 0;
+    let sumRot = 0;
     for (let n = 1; n < terms; n++) {
       const c = cn * cd - sn * sd;
       sn = sn * cd + cn * sd;
       cn = c;
-      const un = u[n];
-      const an = coef[n];
-      const inv = 1 / (1 + un * un);
-      const chiK = (cn + un * sn) * ek * inv;
-      sumPsi += (an * sn) / un;
-      sumChi += an * (chiK - ea * inv);
-      sumCos += an * cn;
-      sumAlt += an * sign * eb * inv;
-      sumChiK += an * chiK;
-      sign = -sign;
+      sumSinOverU += coefOverU[n] * sn;
+      sumCos += coef[n] * cn;
+      sumRot += coefOverU2[n] * (cn + u[n] * sn);
     }
+    const a0 = coef[0];
+    const sumPsi = a0 * (k - a) + sumSinOverU; // Σ A_n ψ_n(a, k)
+    const sumChiK = a0 * ek + ek * sumRot; // Σ A_n (cos_n + u sin_n) e^k / (1 + u²)
+    const sumChi = sumChiK - ea * (a0 + prep.sumOverU2Tail); // Σ A_n χ_n(a, k)
+    const sumAlt = eb * (a0 + prep.sumAltTail); // Σ A_n (−1)^n e^b / (1 + u²)
     if (k < 0 || b > DIRECT_CALL_LIMIT) {
       // put on [a, k]: V_n = e^k ψ_n(a, k) − χ_n(a, k)
       const p = ek * sumPsi - sumChi;
@@ -190,7 +224,7 @@ export function cosStrip(
       put[j] = call[j] - 1 + ek;
     }
     cdf[j] = Math.min(1, Math.max(0, sumPsi));
-    density[j] = Math.max(0, sumCos);
+    density[j] = Math.max(0, a0 + sumCos);
   }
 }
 

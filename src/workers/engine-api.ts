@@ -3,6 +3,7 @@ import type { SmileSurface } from '../engine/smile';
 import type { Stress } from '../engine/stress';
 import type { FieldIssue } from '../engine/validate-model';
 import type { OptionResult } from '../engine/pricing';
+import type { ParameterSensitivity } from '../engine/sensitivity';
 import type { Market, Model, OptionSpec } from '../engine/types';
 
 export interface PriceRequest {
@@ -41,8 +42,16 @@ export interface SmileResponse {
   engineVersion: string;
 }
 
+export interface SensitivityRequest {
+  market: Market;
+  model: Model;
+  expiry: number;
+  moneyness: number[];
+}
+
 export interface EngineApi {
   info(): { engineVersion: string };
   smiles(request: SmileRequest): SmileResponse;
   price(request: PriceRequest): PriceResponse;
+  sensitivities(request: SensitivityRequest): ParameterSensitivity[];
 }

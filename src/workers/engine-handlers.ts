@@ -1,5 +1,6 @@
 /** The engine work behind each worker command, as plain functions (also used by tests). */
 import { priceOptions } from '../engine/pricing';
+import { smileSensitivities } from '../engine/sensitivity';
 import { logReturnDensity, smileSurface } from '../engine/smile';
 import { applyStress, isIdentityStress } from '../engine/stress';
 import { ENGINE_VERSION } from '../engine/version';
@@ -54,4 +55,5 @@ export const engineHandlers: EngineApi = {
   info: () => ({ engineVersion: ENGINE_VERSION }),
   smiles: computeSmiles,
   price: computePrices,
+  sensitivities: (req) => smileSensitivities(req.market, req.model, req.expiry, req.moneyness),
 };

@@ -2,12 +2,14 @@ import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { DensityCurve } from '../../workers/engine-api';
 import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { useTheme } from '../theme';
 import { PlotlyChart } from '../PlotlyChart';
 
 /** Density of the log-return ln(S_T/F) at one expiry, base against stressed, on a log scale. */
 export function DensityChart({ density, title }: { density: DensityCurve; title: string }) {
+  const theme = useTheme();
   const figure = useMemo(() => {
-    const t = chartTheme();
+    const t = chartTheme(theme);
     const clip = (ys: number[]) => ys.map((y) => (y > 1e-8 ? y : null));
     const data: Data[] = [
       {
@@ -47,7 +49,7 @@ export function DensityChart({ density, title }: { density: DensityCurve; title:
       legend: { orientation: 'h', y: -0.25 },
     };
     return { data, layout };
-  }, [density, title]);
+  }, [density, title, theme]);
   return (
     <PlotlyChart
       data={figure.data}

@@ -2,6 +2,7 @@ import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SmileSlice, SmileSurface } from '../../engine/smile';
 import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { useTheme } from '../theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
 
@@ -54,8 +55,9 @@ export function SmileChart({
   stressed: SmileSurface | null;
   mode: AxisMode;
 }) {
+  const theme = useTheme();
   const figure = useMemo(() => {
-    const t = chartTheme();
+    const t = chartTheme(theme);
     const n = base.slices.length;
     const columns = Math.min(n, n > 4 ? 3 : n);
     const rows = Math.ceil(n / columns);
@@ -99,7 +101,7 @@ export function SmileChart({
       });
     });
     return { data, layout };
-  }, [base, stressed, mode]);
+  }, [base, stressed, mode, theme]);
   return (
     <PlotlyChart
       data={figure.data}

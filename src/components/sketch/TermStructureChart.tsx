@@ -2,6 +2,7 @@ import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SmileSurface } from '../../engine/smile';
 import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { useTheme } from '../theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
 
@@ -20,8 +21,9 @@ export function TermStructureChart({
   base: SmileSurface;
   stressed: SmileSurface | null;
 }) {
+  const theme = useTheme();
   const figure = useMemo(() => {
-    const t = chartTheme();
+    const t = chartTheme(theme);
     const measures: Measure[] = ['atm', 'rr25', 'bf25'];
     const data: Data[] = [];
     const layout: Record<string, unknown> = {
@@ -81,7 +83,7 @@ export function TermStructureChart({
       });
     });
     return { data, layout: layout as Partial<Layout> };
-  }, [base, stressed]);
+  }, [base, stressed, theme]);
   return (
     <PlotlyChart
       data={figure.data}

@@ -9,8 +9,9 @@ import { SmileTable } from '../../components/sketch/SmileTable';
 import { StressPanel } from '../../components/sketch/StressPanel';
 import { TermStructureChart } from '../../components/sketch/TermStructureChart';
 import { NO_STRESS, type Stress } from '../../engine/stress';
-import type { Market, Model, OptionSpec } from '../../engine/types';
-import { smileRequest, useGreeks, useSmiles } from './use-smiles';
+import type { OptionSpec } from '../../engine/types';
+import { SensitivityTable } from '../../components/sketch/SensitivityTable';
+import { smileRequest, useGreeks, useSensitivities, useSmiles } from './use-smiles';
 import { useSketchScenario, type SaveState } from './use-sketch-scenario';
 
 const SAVE_LABEL: Record<SaveState, string> = {
@@ -51,9 +52,15 @@ export function SketchPage() {
     [slice],
   );
   const greeks = useGreeks(
-    valid && doc ? (doc.market as Market) : null,
-    valid && doc ? (doc.model as Model) : null,
+    valid && doc ? doc.market : null,
+    valid && doc ? doc.model : null,
     options,
+  );
+  const sensitivities = useSensitivities(
+    valid && doc ? doc.market : null,
+    valid && doc ? doc.model : null,
+    slice ? slice.expiry : null,
+    slice ? slice.logMoneyness : null,
   );
 
   if (loadError && !doc)
@@ -81,8 +88,8 @@ export function SketchPage() {
           {errors.name && <p className="text-xs text-stressed">name: {errors.name}</p>}
         </div>
         <ModelForm
-          market={doc.market as Market}
-          model={doc.model as Model}
+          market={doc.market}
+          model={doc.model}
           errors={errors}
           onMarket={(market) => update({ ...doc, market })}
           onModel={(model) => update({ ...doc, model })}
@@ -160,6 +167,12 @@ export function SketchPage() {
                   stressedSlice={smiles.data.stressed?.slices[tableIndex] ?? null}
                   greeks={greeks.data?.results ?? null}
                   scenarioName={doc.name}
+                />
+              )}
+              {sensitivities.data && slice && (
+                <SensitivityTable
+                  sensitivities={sensitivities.data}
+                  logMoneyness={slice.logMoneyness}
                 />
               )}
               {smiles.data.density && (

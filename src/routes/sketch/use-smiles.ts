@@ -41,3 +41,25 @@ export function useGreeks(
     gcTime: 60_000,
   });
 }
+
+export function useSensitivities(
+  market: Market | null,
+  model: Model | null,
+  expiry: number | null,
+  moneyness: number[] | null,
+) {
+  return useQuery({
+    queryKey: ['engine', 'sensitivities', market, model, expiry, moneyness],
+    queryFn: () =>
+      engineWorker().sensitivities({
+        market: market!,
+        model: model!,
+        expiry: expiry!,
+        moneyness: moneyness!,
+      }),
+    enabled: market !== null && model !== null && expiry !== null && moneyness !== null,
+    placeholderData: keepPreviousData,
+    staleTime: Infinity,
+    gcTime: 60_000,
+  });
+}

@@ -1,0 +1,18 @@
+/** The API alone (used by `npm run dev`, restarted by tsx on change): migrate, seed, listen. */
+import { createApp } from './app';
+import { loadConfig, readPort } from './config';
+import { createDb, migrate, seed } from './db';
+
+const config = loadConfig();
+const url = process.env.DATABASE_URL;
+if (!url) {
+  console.error('DATABASE_URL is not set (npm run dev sets it).');
+  process.exit(1);
+}
+const db = createDb(url);
+await migrate(db);
+await seed(db);
+const port = readPort(process.env.SALTATION_API_PORT, config.port + 1);
+createApp({ db, jwtSecret: config.jwtSecret }).listen(port, '127.0.0.1', () =>
+  console.log(`API on http://127.0.0.1:${port}/api`),
+);

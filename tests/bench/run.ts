@@ -1,0 +1,11 @@
+/**
+ * `npm run bench`: speed against a peer measured in the same run on the same machine. Prints
+ * ratios, never pass/fail: machines are shared and noisy, so targets live here, not in tests.
+ */
+import { benchSurface } from './surface';
+
+console.log(`Saltation benchmarks — Node ${process.versions.node}, one core\n`);
+console.log(
+  'Pricing surface (COS + implied vols) vs @quantlib/ql analytic engines; QuantLib time is pricing only.',
+);
+console.table(benchSurface());
