@@ -163,8 +163,14 @@ function hestonLogCf(
     const sn = Math.sin(di * T);
     const er = er0 * c;
     const ei = -er0 * sn;
-    const sHalf = Math.sin(0.5 * di * T);
-    const omr = -(Math.expm1(-dr * T) * c - 2 * sHalf * sHalf);
+    let omr: number;
+    if (dr * T < 1e-3 && Math.abs(di * T) < 1e-3) {
+      // near dT = 0, 1 − Re e^{−dT} cancels: use expm1 and 1 − cos x = 2 sin²(x/2)
+      const sHalf = Math.sin(0.5 * di * T);
+      omr = -(Math.expm1(-dr * T) * c - 2 * sHalf * sHalf);
+    } else {
+      omr = 1 - er;
+    }
     const omi = -ei;
     // den = 1 − g e
     const denr = 1 - (gr * er - gi * ei);

@@ -158,6 +158,120 @@ function grow(arr: Float64Array, size: number): Float64Array {
  * Undiscounted prices per unit forward, E[(e^Y − e^k)^+] (call) and E[(e^k − e^Y)^+] (put), with
  * the CDF and density of Y at k, for each log-moneyness k = ln(K/F). Writes into the arrays given.
  */
+/**
+ * The strike-dependent sums of the COS series for angles Δ_j = π(k_j − a)/(b − a):
+ * S_j = Σ_{n≥1} (A_n/u_n) sin nΔ_j, C_j = Σ_{n≥1} A_n cos nΔ_j and
+ * R_j = Σ_{n≥1} A_n (cos nΔ_j + u_n sin nΔ_j)/(1 + u_n²). cos/sin of nΔ come from a rotation
+ * recurrence; four strikes advance together so their dependency chains overlap in the CPU.
+ */
+function stripSums(
+  prep: CosExpiry,
+  deltas: Float64Array,
+  count: number,
+  S: Float64Array,
+  C: Float64Array,
+  R: Float64Array,
+): void {
+  const { terms, u, coef, coefOverU, coefOverU2 } = prep;
+  let j = 0;
+  for (; j + 4 <= count; j += 4) {
+    const cd0 = Math.cos(deltas[j]),
+      sd0 = Math.sin(deltas[j]);
+    const cd1 = Math.cos(deltas[j + 1]),
+      sd1 = Math.sin(deltas[j + 1]);
+    const cd2 = Math.cos(deltas[j + 2]),
+      sd2 = Math.sin(deltas[j + 2]);
+    const cd3 = Math.cos(deltas[j + 3]),
+      sd3 = Math.sin(deltas[j + 3]);
+    let c0 = 1,
+      s0 = 0,
+      c1 = 1,
+      s1 = 0,
+      c2 = 1,
+      s2 = 0,
+      c3 = 1,
+      s3 = 0;
+    let S0 = 0,
+      S1 = 0,
+      S2 = 0,
+      S3 = 0,
+      C0 = 0,
+      C1 = 0,
+      C2 = 0,
+      C3 = 0,
+      R0 = 0,
+      R1 = 0,
+      R2 = 0,
+      R3 = 0;
+    for (let n = 1; n < terms; n++) {
+      const an = coef[n],
+        au = coefOverU[n],
+        a2 = coefOverU2[n],
+        un = u[n];
+      let t = c0 * cd0 - s0 * sd0;
+      s0 = s0 * cd0 + c0 * sd0;
+      c0 = t;
+      t = c1 * cd1 - s1 * sd1;
+      s1 = s1 * cd1 + c1 * sd1;
+      c1 = t;
+      t = c2 * cd2 - s2 * sd2;
+      s2 = s2 * cd2 + c2 * sd2;
+      c2 = t;
+      t = c3 * cd3 - s3 * sd3;
+      s3 = s3 * cd3 + c3 * sd3;
+      c3 = t;
+      S0 += au * s0;
+      S1 += au * s1;
+      S2 += au * s2;
+      S3 += au * s3;
+      C0 += an * c0;
+      C1 += an * c1;
+      C2 += an * c2;
+      C3 += an * c3;
+      R0 += a2 * (c0 + un * s0);
+      R1 += a2 * (c1 + un * s1);
+      R2 += a2 * (c2 + un * s2);
+      R3 += a2 * (c3 + un * s3);
+    }
+    S[j] = S0;
+    S[j + 1] = S1;
+    S[j + 2] = S2;
+    S[j + 3] = S3;
+    C[j] = C0;
+    C[j + 1] = C1;
+    C[j + 2] = C2;
+    C[j + 3] = C3;
+    R[j] = R0;
+    R[j + 1] = R1;
+    R[j + 2] = R2;
+    R[j + 3] = R3;
+  }
+  for (; j < count; j++) {
+    const cd = Math.cos(deltas[j]);
+    const sd = Math.sin(deltas[j]);
+    let cn = 1,
+      sn = 0,
+      sS = 0,
+      sC = 0,
+      sR = 0;
+    for (let n = 1; n < terms; n++) {
+      const t = cn * cd - sn * sd;
+      sn = sn * cd + cn * sd;
+      cn = t;
+      sS += coefOverU[n] * sn;
+      sC += coef[n] * cn;
+      sR += coefOverU2[n] * (cn + u[n] * sn);
+    }
+    S[j] = sS;
+    C[j] = sC;
+    R[j] = sR;
+  }
+}
+
+/**
+ * Undiscounted prices per unit forward, E[(e^Y − e^k)^+] (call) and E[(e^k − e^Y)^+] (put), with
+ * the CDF and density of Y at k, for each log-moneyness k = ln(K/F). Writes into the arrays given.
+ */
 export function cosStrip(
   prep: CosExpiry,
   logMoneyness: ArrayLike<number>,
@@ -166,10 +280,13 @@ export function cosStrip(
   cdf: Float64Array,
   density: Float64Array,
 ): void {
-  const { a, b, terms, u, coef, coefOverU, coefOverU2 } = prep;
+  const { a, b } = prep;
+  const a0 = prep.coef[0];
   const ea = Math.exp(a);
   const eb = Math.exp(b);
   const step = Math.PI / (b - a);
+  // strikes inside (a, b) go through the series; the rest are settled here
+  const inside: number[] = [];
   for (let j = 0; j < logMoneyness.length; j++) {
     const k = logMoneyness[j];
     const ek = Math.exp(k);
@@ -178,53 +295,42 @@ export function cosStrip(
       call[j] = 1 - ek;
       cdf[j] = 0;
       density[j] = 0;
-      continue;
-    }
-    if (k >= b) {
+    } else if (k >= b) {
       call[j] = 0;
       put[j] = ek - 1;
       cdf[j] = 1;
       density[j] = 0;
-      continue;
-    }
-    // cos/sin of n·Δ by rotation, Δ = π(k − a)/(b − a)
-    const delta = step * (k - a);
-    const cd = Math.cos(delta);
-    const sd = Math.sin(delta);
-    let cn = 1;
-    let sn = 0;
-    // Sums over n ≥ 1 of A_n sin_n/u_n, A_n cos_n, and A_n (cos_n + u_n sin_n)/(1 + u_n²);
-    // the e^a, e^b and e^k factors are applied once afterwards.
-    let sumSinOverU = 0;
-    let sumCos = 0;
-    let sumRot = 0;
-    for (let n = 1; n < terms; n++) {
-      const c = cn * cd - sn * sd;
-      sn = sn * cd + cn * sd;
-      cn = c;
-      sumSinOverU += coefOverU[n] * sn;
-      sumCos += coef[n] * cn;
-      sumRot += coefOverU2[n] * (cn + u[n] * sn);
-    }
-    const a0 = coef[0];
-    const sumPsi = a0 * (k - a) + sumSinOverU; // Σ A_n ψ_n(a, k)
-    const sumChiK = a0 * ek + ek * sumRot; // Σ A_n (cos_n + u sin_n) e^k / (1 + u²)
+    } else inside.push(j);
+  }
+  const m = inside.length;
+  const deltas = new Float64Array(m);
+  for (let i = 0; i < m; i++) deltas[i] = step * (logMoneyness[inside[i]] - a);
+  const S = new Float64Array(m);
+  const C = new Float64Array(m);
+  const R = new Float64Array(m);
+  stripSums(prep, deltas, m, S, C, R);
+  for (let i = 0; i < m; i++) {
+    const j = inside[i];
+    const k = logMoneyness[j];
+    const ek = Math.exp(k);
+    const sumPsi = a0 * (k - a) + S[i]; // Σ A_n ψ_n(a, k)
+    const sumChiK = ek * (a0 + R[i]); // Σ A_n (cos_n + u sin_n) e^k / (1 + u²)
     const sumChi = sumChiK - ea * (a0 + prep.sumOverU2Tail); // Σ A_n χ_n(a, k)
-    const sumAlt = eb * (a0 + prep.sumAltTail); // Σ A_n (−1)^n e^b / (1 + u²)
     if (k < 0 || b > DIRECT_CALL_LIMIT) {
       // put on [a, k]: V_n = e^k ψ_n(a, k) − χ_n(a, k)
       const p = ek * sumPsi - sumChi;
       put[j] = Math.max(p, 0);
       call[j] = put[j] + 1 - ek;
     } else {
-      // call on [k, b]: V_n = χ_n(k, b) − e^k ψ_n(k, b), ψ_n(k, b) = (b − k) for n = 0, −sin_n/u_n
-      const psiKB = coef[0] * (b - k) - (sumPsi - coef[0] * (k - a));
+      // call on [k, b]: V_n = χ_n(k, b) − e^k ψ_n(k, b), with ψ_0(k, b) = b − k, ψ_n = −sin_n/u_n
+      const sumAlt = eb * (a0 + prep.sumAltTail); // Σ A_n (−1)^n e^b / (1 + u²)
+      const psiKB = a0 * (b - k) - S[i];
       const c = sumAlt - sumChiK - ek * psiKB;
       call[j] = Math.max(c, 0);
       put[j] = call[j] - 1 + ek;
     }
     cdf[j] = Math.min(1, Math.max(0, sumPsi));
-    density[j] = Math.max(0, a0 + sumCos);
+    density[j] = Math.max(0, a0 + C[i]);
   }
 }
 
