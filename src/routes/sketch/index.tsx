@@ -10,6 +10,7 @@ import { StressPanel } from '../../components/sketch/StressPanel';
 import { TermStructureChart } from '../../components/sketch/TermStructureChart';
 import { NO_STRESS, type Stress } from '../../engine/stress';
 import type { OptionSpec } from '../../engine/types';
+import { ScenarioPicker } from '../../components/sketch/ScenarioPicker';
 import { SensitivityTable } from '../../components/sketch/SensitivityTable';
 import { smileRequest, useGreeks, useSensitivities, useSmiles } from './use-smiles';
 import { useSketchScenario, type SaveState } from './use-sketch-scenario';
@@ -75,6 +76,7 @@ export function SketchPage() {
   return (
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
       <aside className="space-y-4" aria-label="Scenario">
+        <ScenarioPicker currentId={doc.id} />
         <div className="space-y-1">
           <input
             aria-label="Scenario name"
