@@ -1,7 +1,16 @@
 /** The CLI commands over the engine; each validates its request and times only engine work. */
 import { z } from 'zod';
 import { priceOptions } from '../../src/engine/pricing';
-import { marketSchema, modelSchema, MAX_EXPIRY_YEARS, stressSchema } from '../../src/engine/schema';
+import { bookTotal, ladderMoves, legRisks, legValuesAtMoves, sumRow } from '../../src/engine/book';
+import type { Position } from '../../src/engine/positions';
+import {
+  ladderSchema,
+  marketSchema,
+  modelSchema,
+  MAX_EXPIRY_YEARS,
+  positionsSchema,
+  stressSchema,
+} from '../../src/engine/schema';
 import { smileSurface, type SmileSurface } from '../../src/engine/smile';
 import { applyStress, isIdentityStress } from '../../src/engine/stress';
 import type { Market, Model, OptionSpec } from '../../src/engine/types';
@@ -94,6 +103,54 @@ export function smile(request: unknown) {
   return {
     ...surfaceJson(base),
     ...(stressed ? { stressed: surfaceJson(stressed) } : {}),
+    elapsedMs,
+  };
+}
+
+const revalueRequest = z.object({
+  market: marketSchema,
+  model: modelSchema,
+  stress: stressSchema.optional(),
+  positions: positionsSchema,
+  ladder: ladderSchema.optional(),
+});
+
+export function revalue(request: unknown) {
+  const req = parse(revalueRequest, request);
+  let market = req.market as Market;
+  let model = req.model as Model;
+  if (!isIdentityStress(req.stress)) {
+    const s = applyStress(market, model, req.stress ?? {});
+    if (s.issues.length > 0)
+      throw new CliError(
+        'invalid-stress',
+        `${s.issues[0].path}: ${s.issues[0].message}`,
+        s.issues[0].path,
+      );
+    market = s.market;
+    model = s.model;
+  }
+  const positions = req.positions as Position[];
+  const started = performance.now();
+  const legs = legRisks(market, model, positions);
+  const total = bookTotal(legs);
+  const moves = req.ladder ? ladderMoves(req.ladder) : [];
+  const ladder = legValuesAtMoves(market, model, positions, moves).map((row, i) => ({
+    move: moves[i],
+    pnl: sumRow(row) - total.value,
+  }));
+  const elapsedMs = performance.now() - started;
+  return {
+    legs: legs.map(({ id, value, delta, gamma, vega, theta }) => ({
+      id,
+      value,
+      delta,
+      gamma,
+      vega,
+      theta,
+    })),
+    total,
+    ladder,
     elapsedMs,
   };
 }

@@ -3,11 +3,11 @@
  * JSON response. Bad input exits 2 with {"error": {code, message, path}} on stderr and nothing on
  * stdout.
  */
-import { price, smile } from './commands';
+import { price, revalue, smile } from './commands';
 import { CliError, fail, readRequest } from './io';
 
-const COMMANDS: Record<string, (request: unknown) => unknown> = { price, smile };
-const LATER = ['calibrate', 'simulate', 'replay', 'revalue'];
+const COMMANDS: Record<string, (request: unknown) => unknown> = { price, smile, revalue };
+const LATER = ['calibrate', 'simulate', 'replay'];
 
 function main(argv: string[]) {
   const [command, ...rest] = argv;

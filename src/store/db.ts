@@ -4,6 +4,7 @@
  * source of truth while offline: every edit lands here first.
  */
 import Dexie, { type EntityTable } from 'dexie';
+import type { Position } from '../engine/positions';
 import type { ScenarioDocument } from '../engine/schema';
 
 export type SyncState = 'local' | 'synced' | 'pending' | 'conflict';
@@ -28,6 +29,17 @@ export interface OutboxEntry {
   createdAt: number;
 }
 
+/** A named group of scenarios on this device, with the book of positions it revalues. */
+export interface LocalScenarioSet {
+  id: string;
+  name: string;
+  scenarioIds: string[];
+  /** the scenario whose unstressed parameters are the book's base */
+  baseScenarioId: string | null;
+  positions: Position[];
+  updatedAt: number;
+}
+
 export interface CachedResult {
   key: string;
   kind: string;
@@ -41,6 +53,7 @@ export class SaltationDb extends Dexie {
   scenarios!: EntityTable<StoredScenario, 'id'>;
   outbox!: EntityTable<OutboxEntry, 'seq'>;
   results!: EntityTable<CachedResult, 'key'>;
+  sets!: EntityTable<LocalScenarioSet, 'id'>;
 
   constructor(name = 'saltation') {
     super(name, { chromeTransactionDurability: 'strict' });
@@ -49,6 +62,7 @@ export class SaltationDb extends Dexie {
       outbox: '++seq, mutationId, scenarioId',
       results: 'key, kind, lastUsedAt',
     });
+    this.version(2).stores({ sets: 'id, name, updatedAt' });
   }
 }
 

@@ -2,6 +2,9 @@
 import type { SmileSurface } from '../engine/smile';
 import type { Stress } from '../engine/stress';
 import type { FieldIssue } from '../engine/validate-model';
+import type { LadderSpec } from '../engine/book';
+import type { BookScenario, SetRevaluation } from '../engine/book-set';
+import type { Position } from '../engine/positions';
 import type { OptionResult } from '../engine/pricing';
 import type { ParameterSensitivity } from '../engine/sensitivity';
 import type { Market, Model, OptionSpec } from '../engine/types';
@@ -49,9 +52,17 @@ export interface SensitivityRequest {
   moneyness: number[];
 }
 
+export interface BookRequest {
+  base: BookScenario;
+  scenarios: BookScenario[];
+  positions: Position[];
+  ladder: LadderSpec;
+}
+
 export interface EngineApi {
   info(): { engineVersion: string };
   smiles(request: SmileRequest): SmileResponse;
   price(request: PriceRequest): PriceResponse;
   sensitivities(request: SensitivityRequest): ParameterSensitivity[];
+  book(request: BookRequest): SetRevaluation;
 }

@@ -1,4 +1,5 @@
 /** The engine work behind each worker command, as plain functions (also used by tests). */
+import { revalueSet } from '../engine/book-set';
 import { priceOptions } from '../engine/pricing';
 import { smileSensitivities } from '../engine/sensitivity';
 import { logReturnDensity, smileSurface } from '../engine/smile';
@@ -56,4 +57,5 @@ export const engineHandlers: EngineApi = {
   smiles: computeSmiles,
   price: computePrices,
   sensitivities: (req) => smileSensitivities(req.market, req.model, req.expiry, req.moneyness),
+  book: (req) => revalueSet(req.base, req.scenarios, req.positions, req.ladder),
 };

@@ -109,3 +109,61 @@ describe('the command line’s error contract', () => {
     expect(out.stressed.rr25[0]).toBeLessThan(out.rr25[0]);
   });
 });
+
+describe('the revalue command', () => {
+  const base = {
+    market: { spot: 42, rate: 0.1 },
+    model: { kind: 'black-scholes', sigma: 0.2 },
+    positions: [
+      { id: 'c', type: 'call', strike: 40, expiry: 0.5, quantity: 2 },
+      { id: 'h', type: 'underlying', quantity: -1 },
+    ],
+    ladder: { from: -0.3, to: 0.1, steps: 5 },
+  };
+
+  it('answers legs, total and ladder (Hull call 4.7594 × 2 − 42)', () => {
+    const r = cli('revalue', JSON.stringify(base));
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.legs[0].value).toBeCloseTo(2 * 4.7594, 3);
+    expect(out.total.value).toBeCloseTo(2 * 4.7594 - 42, 3);
+    expect(out.ladder.map((l: { move: number }) => l.move)).toEqual([-0.3, -0.2, -0.1, 0, 0.1]);
+    expect(out.ladder[3].pnl).toBe(0);
+  });
+
+  const bad: [string, unknown, string][] = [
+    [
+      'an option without an expiry',
+      { ...base, positions: [{ id: 'x', type: 'put', strike: 40, quantity: 1 }] },
+      'positions.0.expiry',
+    ],
+    [
+      'a negative strike',
+      { ...base, positions: [{ id: 'x', type: 'put', strike: -40, expiry: 1, quantity: 1 }] },
+      'positions.0.strike',
+    ],
+    [
+      'duplicate leg ids',
+      { ...base, positions: [base.positions[0], base.positions[0]] },
+      'positions.1.id',
+    ],
+    [
+      'an unknown leg type',
+      { ...base, positions: [{ id: 'x', type: 'future', quantity: 1 }] },
+      'positions.0.type',
+    ],
+    [
+      'a ladder running backwards',
+      { ...base, ladder: { from: 0.1, to: -0.3, steps: 5 } },
+      'ladder.to',
+    ],
+  ];
+  for (const [what, request, path] of bad) {
+    it(`refuses ${what} with exit 2 and path ${path}`, () => {
+      const r = cli('revalue', JSON.stringify(request));
+      expect(r.status).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(JSON.parse(r.stderr).error.path).toBe(path);
+    });
+  }
+});
