@@ -35,6 +35,7 @@ describe('Sketch', () => {
     expect(cellBefore).toBe('—');
 
     const slider = page.getByTestId('stress-jumpMeanShift');
+    await slider.scrollIntoViewIfNeeded();
     const box = (await slider.boundingBox())!;
     await page.mouse.move(box.x + box.width * 0.75, box.y + box.height / 2);
     await page.mouse.down();

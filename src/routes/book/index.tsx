@@ -37,7 +37,7 @@ export function BookPage() {
 
   return (
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
-      <aside aria-label="Scenario set">
+      <aside aria-label="Set and scenarios">
         <SetPanel
           sets={sets.data ?? []}
           current={current}
