@@ -81,13 +81,18 @@ export function revalueSet(
         issues: stressed.issues,
         ladder: null,
       };
-    const [now] = legValuesAtMoves(stressed.market, stressed.model, positions, [0]);
+    // one pass over the ladder (with the zero move added if it is not on it) serves both
+    const zero = moves.indexOf(0);
+    const all = legValuesAtMoves(
+      stressed.market,
+      stressed.model,
+      positions,
+      zero >= 0 ? moves : [...moves, 0],
+    );
+    const now = all[zero >= 0 ? zero : moves.length];
     const legPnl = Array.from(now, (v, i) => v - legs[i].value);
     const value = sumRow(now);
-    const scenarioLadder = ladderPnl(
-      legValuesAtMoves(stressed.market, stressed.model, positions, moves),
-      value,
-    );
+    const scenarioLadder = ladderPnl(all.slice(0, moves.length), value);
     return {
       id: s.id,
       name: s.name,

@@ -6,7 +6,8 @@
  */
 import { blackPrice } from './black';
 import { modelSpec } from './characteristic';
-import { cosStrip, prepareCos } from './cos';
+import { prepareCos } from './cos';
+import { putsByInterpolation } from './strip-interpolation';
 import { discountFactor, forwardPrice } from './market';
 import { priceOptions } from './pricing';
 import type { Position } from './positions';
@@ -131,14 +132,15 @@ export function legValuesAtMoves(
         (i, j) => (ks[mi * legs.length + j] = Math.log(positions[i].strike! / (F0 * (1 + m)))),
       ),
     );
-    const call = new Float64Array(n);
     const put = new Float64Array(n);
-    cosStrip(prep, ks, call, put, new Float64Array(n), new Float64Array(n));
+    putsByInterpolation(prep, ks, put);
     moves.forEach((m, mi) => {
       const F = F0 * (1 + m);
       legs.forEach((i, j) => {
         const p = positions[i];
-        const norm = p.type === 'call' ? call[mi * legs.length + j] : put[mi * legs.length + j];
+        const idx = mi * legs.length + j;
+        // calls from puts by parity, per unit forward: C = P + 1 − e^k
+        const norm = p.type === 'call' ? put[idx] + 1 - Math.exp(ks[idx]) : put[idx];
         values[mi][i] = p.quantity * df * F * norm;
       });
     });

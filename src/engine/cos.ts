@@ -8,7 +8,7 @@
  * call coefficients); the other side follows from put-call parity.
  */
 import { logCharacteristic, type ModelSpec } from './characteristic';
-import { cumulants } from './cumulants';
+import { cumulants, diffusionVariance } from './cumulants';
 
 export interface CosSettings {
   /** truncation width in units of √(c2 + √c4) (Fang & Oosterlee section 5.1) */
@@ -43,6 +43,9 @@ export interface CosExpiry {
   sumAltTail: number;
   /** true when maxTerms was reached before the characteristic function decayed */
   capped: boolean;
+  /** variance of Y (second cumulant) and of its diffusive part alone */
+  variance: number;
+  diffusionVariance: number;
 }
 
 const BLOCK = 64;
@@ -145,6 +148,8 @@ export function prepareCos(
     sumOverU2Tail,
     sumAltTail,
     capped,
+    variance: c2,
+    diffusionVariance: diffusionVariance(spec, T),
   };
 }
 

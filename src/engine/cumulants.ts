@@ -11,16 +11,18 @@ export interface Cumulants {
   c4: number;
 }
 
+/** Expected integrated variance of the diffusive part over [0, T]. */
+export function diffusionVariance(spec: ModelSpec, T: number): number {
+  const d = spec.diffusion;
+  if (d.type === 'constant') return d.variance * T;
+  const kt = d.kappa * T;
+  const decay = kt > 1e-8 ? -Math.expm1(-kt) / d.kappa : T;
+  return d.theta * T + (d.v0 - d.theta) * decay;
+}
+
 /** A rough variance of Y that needs no moments: expected integrated variance plus jump variance. */
 export function roughVariance(spec: ModelSpec, T: number): number {
-  const d = spec.diffusion;
-  let v: number;
-  if (d.type === 'constant') v = d.variance * T;
-  else {
-    const kt = d.kappa * T;
-    const decay = kt > 1e-8 ? -Math.expm1(-kt) / d.kappa : T;
-    v = d.theta * T + (d.v0 - d.theta) * decay;
-  }
+  let v = diffusionVariance(spec, T);
   const j = spec.jumps;
   if (j.type === 'lognormal') v += j.lambda * T * (j.mean * j.mean + j.stdev * j.stdev);
   if (j.type === 'double-exponential') {

@@ -2,6 +2,7 @@
  * `npm run bench`: speed against a peer measured in the same run on the same machine. Prints
  * ratios, never pass/fail: machines are shared and noisy, so targets live here, not in tests.
  */
+import { benchBook } from './book';
 import { benchSurface } from './surface';
 
 console.log(`Saltation benchmarks — Node ${process.versions.node}, one core\n`);
@@ -9,3 +10,6 @@ console.log(
   'Pricing surface (COS + implied vols) vs @quantlib/ql analytic engines; QuantLib time is pricing only.',
 );
 console.table(benchSurface());
+
+console.log('\nBook revaluation with the gap ladder, one thread (as in one worker).');
+console.table(benchBook());

@@ -148,3 +148,32 @@ describe('book revaluation', () => {
     expect(bs.jumpPerDay.every((p) => p === 0)).toBe(true);
   });
 });
+
+describe('the ladder’s interpolated strip', () => {
+  it('matches direct pricing at each moved spot within 1e-8 × spot, 1 day to 1 year, many strikes', () => {
+    const positions: Position[] = [];
+    for (const days of [1, 7, 30, 365]) {
+      for (let i = 0; i < 60; i++) {
+        const strike = 70 + i;
+        positions.push({
+          id: `${days}-${i}`,
+          type: strike < 100 ? 'put' : 'call',
+          strike,
+          expiry: days / 365,
+          quantity: 1,
+        });
+      }
+    }
+    const moves = ladderMoves({ from: -0.3, to: 0.1, steps: 41 });
+    const values = legValuesAtMoves(market, bates, positions, moves);
+    for (const mi of [0, 10, 25, 40]) {
+      const direct = legRisks({ ...market, spot: market.spot * (1 + moves[mi]) }, bates, positions);
+      direct.forEach((d, i) =>
+        expect(
+          Math.abs(values[mi][i] - d.value),
+          `move ${moves[mi]} leg ${positions[i].id}`,
+        ).toBeLessThan(1e-8 * market.spot),
+      );
+    }
+  });
+});
