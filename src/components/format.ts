@@ -20,6 +20,8 @@ export function formatVol(v: number | null | undefined, digits = 2): string {
 
 export function formatNumber(v: number | null | undefined, digits = 4): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return '—';
+  // no "-0.00" for values that round to zero
+  if (Math.abs(v) < 0.5 * 10 ** -digits) v = 0;
   return v.toLocaleString('en-US', {
     minimumFractionDigits: digits,
     maximumFractionDigits: digits,

@@ -86,7 +86,12 @@ export function LadderChart({
       margin: { l: 70, r: 12, t: 16, b: 44 },
       barmode: 'overlay',
       legend: { orientation: 'h', y: 1.1 },
-      xaxis: { ...axis, title: { text: 'instant move of the underlying (%)' }, ticksuffix: '%' },
+      xaxis: {
+        ...axis,
+        anchor: 'y2',
+        title: { text: 'instant move of the underlying (%)' },
+        ticksuffix: '%',
+      },
       yaxis: { ...axis, domain: [0.36, 1], title: { text: 'book P&L' } },
       yaxis2: { ...axis, domain: [0, 0.26], type: 'log', title: { text: 'probability' } },
     };

@@ -9,10 +9,38 @@ import { SetPanel } from '../../components/book/SetPanel';
 import { CautionNote } from '../../components/CautionNote';
 import { formatNumber } from '../../components/format';
 import type { Position } from '../../engine/positions';
+import type { StoredScenario } from '../../store/db';
 import { localScenariosQuery } from '../../store/hooks';
 import { DEFAULT_LADDER, setsQuery, useCreateSet, useRevaluation, useUpdateSet } from './use-book';
 
 const today = () => new Date().toISOString().slice(0, 10);
+
+/** A set may mix underlyings by mistake: say so when a scenario's spot is far from the base's. */
+function UnderlyingWarning({
+  scenarios,
+  baseId,
+}: {
+  scenarios: StoredScenario[];
+  baseId: string | null;
+}) {
+  const base = scenarios.find((s) => s.id === baseId) ?? scenarios[0];
+  if (!base) return null;
+  const odd = scenarios.filter(
+    (s) => Math.abs(Math.log(s.document.market.spot / base.document.market.spot)) > Math.log(1.5),
+  );
+  if (odd.length === 0) return null;
+  return (
+    <p role="note" className="text-sm text-warn">
+      {odd
+        .map(
+          (s) =>
+            `${s.name} has spot ${formatNumber(s.document.market.spot, 2)} against the base's ${formatNumber(base.document.market.spot, 2)}`,
+        )
+        .join('; ')}{' '}
+      — a different underlying? Its P&amp;L revalues this book at that spot.
+    </p>
+  );
+}
 
 export function BookPage() {
   const [params, setParams] = useSearchParams();
@@ -119,6 +147,12 @@ export function BookPage() {
                 />
                 {data && data.scenarios.length > 0 && (
                   <>
+                    <UnderlyingWarning
+                      scenarios={(scenarios.data ?? []).filter((s) =>
+                        current.scenarioIds.includes(s.id),
+                      )}
+                      baseId={current.baseScenarioId}
+                    />
                     <PnlMatrix result={data} positions={positions} onSelect={setSelectedLeg} />
                     {legIndex >= 0 && (
                       <div
