@@ -1,6 +1,10 @@
 /** The CLI commands over the engine; each validates its request and times only engine work. */
 import { z } from 'zod';
 import { priceOptions } from '../../src/engine/pricing';
+import { calibrate as calibrateModel } from '../../src/engine/calibrate';
+import { completeGuess, PARAMETERS } from '../../src/engine/calibration-space';
+import { discountFactor, forwardPrice } from '../../src/engine/market';
+import { impliedVol } from '../../src/engine/implied-vol';
 import { bookTotal, ladderMoves, legRisks, legValuesAtMoves, sumRow } from '../../src/engine/book';
 import type { Position } from '../../src/engine/positions';
 import {
@@ -152,5 +156,97 @@ export function revalue(request: unknown) {
     total,
     ladder,
     elapsedMs,
+  };
+}
+
+const positive = z.number().refine((x) => Number.isFinite(x) && x > 0, 'must be a positive number');
+const quoteSchema = z.union(
+  [
+    z.object({
+      strike: positive,
+      expiry: positive.refine((x) => x <= MAX_EXPIRY_YEARS, 'at most 50 years'),
+      impliedVol: positive.refine((x) => x < 5, 'must be below 5 (500 %)'),
+    }),
+    z.object({
+      strike: positive,
+      expiry: positive.refine((x) => x <= MAX_EXPIRY_YEARS, 'at most 50 years'),
+      type: z.enum(['call', 'put']),
+      price: positive,
+    }),
+  ],
+  { error: 'each quote needs strike, expiry and impliedVol, or strike, expiry, type and price' },
+);
+
+const calibrateRequest = z.object({
+  market: marketSchema,
+  model: z
+    .object({
+      kind: z.enum(['heston', 'merton', 'bates', 'heston-kou', 'black-scholes'], {
+        error: 'must be a model kind',
+      }),
+      fixed: z.array(z.string()).optional(),
+    })
+    .loose(),
+  quotes: z.array(quoteSchema).min(1, 'needs at least one quote').max(5000),
+  weights: z.enum(['uniform', 'vega']).optional(),
+});
+
+export function calibrate(request: unknown) {
+  const req = parse(calibrateRequest, request);
+  const market = req.market as Market;
+  const kind = req.model.kind;
+  const fixed = req.model.fixed ?? [];
+  const unknownFixed = fixed.find((f) => !PARAMETERS[kind].includes(f));
+  if (unknownFixed)
+    throw new CliError(
+      'invalid-input',
+      `model.fixed: "${unknownFixed}" is not a parameter of ${kind}`,
+      'model.fixed',
+    );
+  const guess = completeGuess(kind, req.model);
+  const guessCheck = modelSchema.safeParse(guess);
+  if (!guessCheck.success) {
+    const i = guessCheck.error.issues[0];
+    throw new CliError(
+      'invalid-input',
+      `model.${i.path.join('.')}: ${i.message}`,
+      `model.${i.path.join('.')}`,
+    );
+  }
+  const quotes = req.quotes.map((q, i) => {
+    if ('impliedVol' in q) return { strike: q.strike, expiry: q.expiry, impliedVol: q.impliedVol };
+    const iv = impliedVol({
+      price: q.price,
+      forward: forwardPrice(market, q.expiry),
+      strike: q.strike,
+      expiry: q.expiry,
+      discount: discountFactor(market, q.expiry),
+      isCall: q.type === 'call',
+    });
+    if (iv.vol === null)
+      throw new CliError(
+        'invalid-input',
+        `quotes.${i}.price: outside the no-arbitrage bounds (${iv.failure})`,
+        `quotes.${i}.price`,
+      );
+    return { strike: q.strike, expiry: q.expiry, impliedVol: iv.vol };
+  });
+  const r = calibrateModel({
+    market,
+    model: guess,
+    fixed,
+    quotes,
+    weights: req.weights ?? 'uniform',
+  });
+  return {
+    model: r.model,
+    sseVolPoints: r.sseVolPoints,
+    rmseVolPoints: r.rmseVolPoints,
+    rmseByExpiry: r.rmseByExpiry,
+    iterations: r.iterations,
+    feller: r.feller,
+    onBounds: r.onBounds,
+    elapsedMs: r.elapsedMs,
+    residuals: r.residuals,
   };
 }

@@ -3,11 +3,16 @@
  * JSON response. Bad input exits 2 with {"error": {code, message, path}} on stderr and nothing on
  * stdout.
  */
-import { price, revalue, smile } from './commands';
+import { calibrate, price, revalue, smile } from './commands';
 import { CliError, fail, readRequest } from './io';
 
-const COMMANDS: Record<string, (request: unknown) => unknown> = { price, smile, revalue };
-const LATER = ['calibrate', 'simulate', 'replay'];
+const COMMANDS: Record<string, (request: unknown) => unknown> = {
+  price,
+  smile,
+  revalue,
+  calibrate,
+};
+const LATER = ['simulate', 'replay'];
 
 function main(argv: string[]) {
   const [command, ...rest] = argv;

@@ -167,3 +167,47 @@ describe('the revalue command', () => {
     });
   }
 });
+
+describe('the calibrate command', () => {
+  it('fits Heston to quotes given as vols and as prices, answering the DESIGN fields', () => {
+    const request = {
+      market: { spot: 100 },
+      model: { kind: 'heston', fixed: ['kappa'] },
+      quotes: [
+        { strike: 90, expiry: 0.5, impliedVol: 0.25 },
+        { strike: 100, expiry: 0.5, impliedVol: 0.21 },
+        { strike: 110, expiry: 0.5, impliedVol: 0.19 },
+        { strike: 100, expiry: 1, type: 'call', price: 8.9 },
+      ],
+    };
+    const r = cli('calibrate', JSON.stringify(request));
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.model.kind).toBe('heston');
+    expect(out.model.kappa).toBe(1.5);
+    for (const key of ['sseVolPoints', 'rmseVolPoints', 'iterations', 'elapsedMs'])
+      expect(typeof out[key]).toBe('number');
+    expect(out.residuals).toHaveLength(4);
+    expect(out.rmseVolPoints).toBeLessThan(0.01);
+  });
+
+  it('refuses a fixed name the model does not have, and a price outside the bounds', () => {
+    const base = {
+      market: { spot: 100 },
+      model: { kind: 'heston' },
+      quotes: [{ strike: 100, expiry: 0.5, impliedVol: 0.2 }],
+    };
+    const a = cli(
+      'calibrate',
+      JSON.stringify({ ...base, model: { kind: 'heston', fixed: ['jumpMean'] } }),
+    );
+    expect(a.status).toBe(2);
+    expect(JSON.parse(a.stderr).error.path).toBe('model.fixed');
+    const b = cli(
+      'calibrate',
+      JSON.stringify({ ...base, quotes: [{ strike: 100, expiry: 0.5, type: 'call', price: 150 }] }),
+    );
+    expect(b.status).toBe(2);
+    expect(JSON.parse(b.stderr).error.path).toBe('quotes.0.price');
+  });
+});

@@ -1,0 +1,11 @@
+import { expose } from 'comlink';
+import { calibrate } from '../engine/calibrate';
+import { jumpsVerdict } from '../engine/jumps-verdict';
+import type { FitApi } from './fit-api';
+
+const api: FitApi = {
+  calibrate: (request, progress) => calibrate(request, (f) => void progress(f)),
+  verdict: (request, progress) => jumpsVerdict({ ...request, progress: (f) => void progress(f) }),
+};
+
+expose(api);
