@@ -3,6 +3,7 @@
  * ratios, never pass/fail: machines are shared and noisy, so targets live here, not in tests.
  */
 import { benchBook } from './book';
+import { benchCalibration } from './calibration';
 import { benchSurface } from './surface';
 
 console.log(`Saltation benchmarks — Node ${process.versions.node}, one core\n`);
@@ -13,3 +14,6 @@ console.table(benchSurface());
 
 console.log('\nBook revaluation with the gap ladder, one thread (as in one worker).');
 console.table(benchBook());
+
+console.log('\nCalibration to a 13 × 8 surface with noise, one thread.');
+console.table(benchCalibration());

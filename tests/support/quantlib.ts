@@ -138,3 +138,63 @@ export function quantlibHestonPrices(
     return option.NPV();
   });
 }
+
+export interface QlVolQuote {
+  days: number;
+  strike: number;
+  impliedVol: number;
+}
+
+/**
+ * QuantLib's own Heston calibration: HestonModelHelpers on implied-vol quotes, its
+ * Levenberg-Marquardt, the implied-vol error type (so its objective is in vols, like ours).
+ */
+export function quantlibCalibrateHeston(
+  spot: number,
+  rate: number,
+  dividendYield: number,
+  quotes: QlVolQuote[],
+  guess: QlHestonParams,
+): QlHestonParams {
+  const { rTs, qTs } = flatCurves(rate, dividendYield);
+  const s0 = new ql.Handle(new ql.SimpleQuote(spot));
+  const process = new ql.HestonProcess(
+    rTs,
+    qTs,
+    s0,
+    guess.v0,
+    guess.kappa,
+    guess.theta,
+    guess.volOfVol,
+    guess.rho,
+  );
+  const model = new ql.HestonModel(process);
+  const engine = new ql.AnalyticHestonEngine().aheInit2(model, 96);
+  const calendar = new ql.NullCalendar();
+  const helpers = quotes.map((q) => {
+    const h = new ql.HestonModelHelper().hmhInit1(
+      new ql.Period().init1(q.days, ql.TimeUnit.Days),
+      calendar,
+      spot,
+      q.strike,
+      new ql.Handle(new ql.SimpleQuote(q.impliedVol)),
+      rTs,
+      qTs,
+      ql.BlackCalibrationHelper.CalibrationErrorType.ImpliedVolError,
+    );
+    h.setPricingEngine(engine);
+    return h;
+  });
+  model.calibrate1(
+    helpers,
+    new ql.LevenbergMarquardt(1e-8, 1e-8, 1e-8),
+    new ql.EndCriteria(400, 40, 1e-8, 1e-8, 1e-8),
+  );
+  return {
+    v0: model.v0(),
+    kappa: model.kappa(),
+    theta: model.theta(),
+    volOfVol: model.sigma(),
+    rho: model.rho(),
+  };
+}
