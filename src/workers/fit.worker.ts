@@ -1,10 +1,13 @@
 import { expose } from 'comlink';
 import { calibrate } from '../engine/calibrate';
 import { jumpsVerdict } from '../engine/jumps-verdict';
+import { solveToTargets } from '../engine/solve-to-targets';
 import type { FitApi } from './fit-api';
 
 const api: FitApi = {
   calibrate: (request, progress) => calibrate(request, (f) => void progress(f)),
+  solveTargets: (r, progress) =>
+    solveToTargets(r.market, r.model, r.stress, r.targets, r.also, (f) => void progress(f)),
   verdict: (request, progress) => jumpsVerdict({ ...request, progress: (f) => void progress(f) }),
 };
 

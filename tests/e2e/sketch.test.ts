@@ -65,4 +65,32 @@ describe('Sketch', () => {
     expect(errors).toEqual([]);
     await context.close();
   });
+
+  it('solves the jumps to placed target vols and opens the new stressed scenario', async () => {
+    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await context.newPage();
+    const errors = trackErrors(page);
+    await page.goto(app.url);
+    await expect
+      .poll(() => page.getByTestId('smile-chart').getAttribute('data-stressed'), { timeout: 20000 })
+      .not.toBeNull();
+    const panel = page.getByTestId('target-vols');
+    await panel.scrollIntoViewIfNeeded();
+    for (const [k, v] of [
+      ['-0.1', '34'],
+      ['0', '16'],
+      ['0.05', '15'],
+    ]) {
+      await page.getByLabel('Target ln(K/F)').fill(k);
+      await page.getByLabel('Target vol %').fill(v);
+      await panel.getByRole('button', { name: 'Place' }).click();
+    }
+    await expect.poll(() => panel.locator('li').count()).toBe(3);
+    await panel.getByRole('button', { name: 'Solve jumps' }).click();
+    await expect
+      .poll(() => page.getByLabel('Scenario name').inputValue(), { timeout: 30000 })
+      .toMatch(/solved to targets$/);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
 });

@@ -1,6 +1,8 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
+import { normCdf } from '../../engine/normal';
 import type { SmileSlice, SmileSurface } from '../../engine/smile';
+import type { TargetVol } from '../../engine/solve-to-targets';
 import { chartTheme, PLOT_CONFIG } from '../chart-theme';
 import { useTheme } from '../theme';
 import { formatTenor } from '../format';
@@ -45,15 +47,19 @@ function trace(
   } as Data;
 }
 
+const NO_TARGETS: TargetVol[] = [];
+
 /** Base and stressed smiles side by side, one small panel per expiry. */
 export function SmileChart({
   base,
   stressed,
   mode,
+  targets = NO_TARGETS,
 }: {
   base: SmileSurface;
   stressed: SmileSurface | null;
   mode: AxisMode;
+  targets?: TargetVol[];
 }) {
   const theme = useTheme();
   const figure = useMemo(() => {
@@ -77,6 +83,26 @@ export function SmileChart({
       data.push(trace(slice, mode, axis, t.base, 'base', 'solid'));
       const s = stressed?.slices[i];
       if (s) data.push(trace(s, mode, axis, t.stressed, 'stressed', 'dash'));
+      const here = targets.filter((x) => Math.abs(x.expiry - slice.expiry) < 1e-9);
+      if (here.length > 0) {
+        const xs = here.map((x) => {
+          if (mode === 'moneyness') return x.logMoneyness;
+          if (mode === 'strike') return slice.forward * Math.exp(x.logMoneyness);
+          const sd = x.impliedVol * Math.sqrt(slice.expiry);
+          return normCdf(-x.logMoneyness / sd + 0.5 * sd);
+        });
+        data.push({
+          type: 'scatter',
+          mode: 'markers',
+          x: xs,
+          y: here.map((x) => 100 * x.impliedVol),
+          name: 'target',
+          showlegend: false,
+          marker: { color: t.teal, size: 9, symbol: 'diamond' },
+          xaxis: axis === 1 ? 'x' : `x${axis}`,
+          yaxis: axis === 1 ? 'y' : `y${axis}`,
+        } as Data);
+      }
       const suffix = axis === 1 ? '' : String(axis);
       const axisStyle = {
         gridcolor: t.grid,
@@ -101,7 +127,7 @@ export function SmileChart({
       });
     });
     return { data, layout };
-  }, [base, stressed, mode, theme]);
+  }, [base, stressed, mode, targets, theme]);
   return (
     <PlotlyChart
       data={figure.data}

@@ -11,6 +11,8 @@ import { TermStructureChart } from '../../components/sketch/TermStructureChart';
 import { NO_STRESS, type Stress } from '../../engine/stress';
 import type { OptionSpec } from '../../engine/types';
 import { ScenarioPicker } from '../../components/sketch/ScenarioPicker';
+import { TargetVols } from '../../components/sketch/TargetVols';
+import type { TargetVol } from '../../engine/solve-to-targets';
 import { SensitivityTable } from '../../components/sketch/SensitivityTable';
 import { smileRequest, useGreeks, useSensitivities, useSmiles } from './use-smiles';
 import { useSketchScenario, type SaveState } from './use-sketch-scenario';
@@ -72,6 +74,7 @@ export function SketchPage() {
     );
   if (!doc) return <p className="text-muted">Opening the scenario…</p>;
   const stress: Stress = { ...NO_STRESS, ...(doc.stress ?? {}) };
+  const targets = (Array.isArray(doc.targets) ? doc.targets : []) as TargetVol[];
 
   return (
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
@@ -96,6 +99,7 @@ export function SketchPage() {
           onMarket={(market) => update({ ...doc, market })}
           onModel={(model) => update({ ...doc, model })}
         />
+        <TargetVols doc={doc} targets={targets} onTargets={(t) => update({ ...doc, targets: t })} />
         <StressPanel
           stress={stress}
           issues={smiles.data?.stressIssues ?? []}
@@ -140,7 +144,12 @@ export function SketchPage() {
           <>
             <div data-testid="smile-chart" data-stressed={smiles.data.stressed ? 'yes' : 'no'}>
               <h2 className="sr-only">Implied volatility by {AXIS_LABEL[axis]}</h2>
-              <SmileChart base={smiles.data.base} stressed={smiles.data.stressed} mode={axis} />
+              <SmileChart
+                base={smiles.data.base}
+                stressed={smiles.data.stressed}
+                mode={axis}
+                targets={targets}
+              />
               <p className="text-xs text-muted">
                 {AXIS_LABEL[axis]} · implied vol in % · computed in{' '}
                 {smiles.data.elapsedMs.toFixed(1)} ms · engine {smiles.data.engineVersion}
