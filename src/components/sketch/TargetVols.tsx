@@ -89,7 +89,7 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
           aria-label="Target expiry"
           value={expiry}
           onChange={(e) => setExpiry(Number(e.target.value))}
-          className="rounded border border-rule bg-panel px-1 py-1"
+          className="w-full min-w-0 rounded border border-rule bg-panel px-1 py-1"
         >
           {doc.grid.expiries.map((t) => (
             <option key={t} value={t}>
@@ -101,7 +101,7 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
           aria-label="Target ln(K/F)"
           value={k}
           onChange={(e) => setK(e.target.value)}
-          className="tabular rounded border border-rule bg-panel px-1 py-1 text-right"
+          className="tabular w-full min-w-0 rounded border border-rule bg-panel px-1 py-1 text-right"
           placeholder="ln(K/F)"
         />
         <input
@@ -109,7 +109,7 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
           value={vol}
           onChange={(e) => setVol(e.target.value)}
           onKeyDown={(e) => e.key === 'Enter' && add()}
-          className="tabular rounded border border-rule bg-panel px-1 py-1 text-right"
+          className="tabular w-full min-w-0 rounded border border-rule bg-panel px-1 py-1 text-right"
           placeholder="vol %"
         />
         <button

@@ -78,7 +78,7 @@ export function SketchPage() {
 
   return (
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
-      <aside className="space-y-4" aria-label="Scenario">
+      <aside className="min-w-0 space-y-4" aria-label="Scenario">
         <ScenarioPicker currentId={doc.id} />
         <div className="space-y-1">
           <input
