@@ -7,12 +7,14 @@ import { discountFactor, forwardPrice } from '../../src/engine/market';
 import { impliedVol } from '../../src/engine/implied-vol';
 import { bookTotal, ladderMoves, legRisks, legValuesAtMoves, sumRow } from '../../src/engine/book';
 import type { Position } from '../../src/engine/positions';
+import { simulate as simulatePaths } from '../../src/engine/simulate';
 import {
   ladderSchema,
   marketSchema,
   modelSchema,
   MAX_EXPIRY_YEARS,
   positionsSchema,
+  simulationSettingsSchema,
   stressSchema,
 } from '../../src/engine/schema';
 import { smileSurface, type SmileSurface } from '../../src/engine/smile';
@@ -248,5 +250,30 @@ export function calibrate(request: unknown) {
     onBounds: r.onBounds,
     elapsedMs: r.elapsedMs,
     residuals: r.residuals,
+  };
+}
+
+const simulateRequest = z.object({ market: marketSchema, model: modelSchema }).loose();
+
+export function simulate(request: unknown) {
+  const req = parse(simulateRequest, request);
+  const settings = parse(simulationSettingsSchema, request);
+  const r = simulatePaths(req.market as Market, req.model as Model, {
+    horizon: settings.horizon,
+    stepsPerYear: settings.stepsPerYear,
+    paths: settings.paths,
+    seed: settings.seed,
+    antithetic: settings.antithetic ?? true,
+    scheme: settings.scheme ?? 'qe',
+    options: settings.options ?? [],
+  });
+  return {
+    seed: r.seed,
+    paths: r.paths,
+    steps: r.steps,
+    estimates: r.estimates,
+    terminal: r.terminal,
+    jumpsPerPath: r.jumpsPerPath,
+    elapsedMs: r.elapsedMs,
   };
 }

@@ -3,7 +3,7 @@
  * JSON response. Bad input exits 2 with {"error": {code, message, path}} on stderr and nothing on
  * stdout.
  */
-import { calibrate, price, revalue, smile } from './commands';
+import { calibrate, price, revalue, simulate, smile } from './commands';
 import { CliError, fail, readRequest } from './io';
 
 const COMMANDS: Record<string, (request: unknown) => unknown> = {
@@ -11,8 +11,9 @@ const COMMANDS: Record<string, (request: unknown) => unknown> = {
   smile,
   revalue,
   calibrate,
+  simulate,
 };
-const LATER = ['simulate', 'replay'];
+const LATER = ['replay'];
 
 function main(argv: string[]) {
   const [command, ...rest] = argv;

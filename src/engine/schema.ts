@@ -168,3 +168,47 @@ export const ladderSchema = z
     ),
   })
   .refine((l) => l.to >= l.from, { message: 'to must not be below from', path: ['to'] });
+
+const wholeNumber = (lo: number, hi: number) =>
+  finite.refine(
+    (n) => Number.isInteger(n) && n >= lo && n <= hi,
+    `must be a whole number from ${lo} to ${hi}`,
+  );
+
+/** Monte Carlo settings, shared by the Paths page, its worker and the CLI. */
+export const simulationSettingsSchema = z
+  .object({
+    horizon: positiveUpTo(30),
+    stepsPerYear: wholeNumber(1, 100000),
+    paths: wholeNumber(2, 10_000_000),
+    seed: finite.refine((n) => Number.isSafeInteger(n), 'must be a whole number (a safe integer)'),
+    antithetic: z.boolean().optional(),
+    scheme: z.enum(['qe', 'euler'], { error: 'must be "qe" or "euler"' }).optional(),
+    options: z
+      .array(
+        z.object({
+          type: z.enum(['call', 'put'], { error: 'must be "call" or "put"' }),
+          strike: positiveUpTo(1e12),
+          expiry: positiveUpTo(30),
+        }),
+      )
+      .max(200)
+      .optional(),
+  })
+  .superRefine((s, ctx) => {
+    const steps = Math.max(1, Math.round(s.horizon * s.stepsPerYear)) * s.paths;
+    if (steps > 2e9)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['paths'],
+        message: `paths × steps is ${steps.toExponential(2)}; the limit is 2e9 (about ${Math.round(steps / 25e6)} s of work)`,
+      });
+    (s.options ?? []).forEach((o, i) => {
+      if (o.expiry > s.horizon + 1e-12)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['options', i, 'expiry'],
+          message: 'is beyond the simulation horizon',
+        });
+    });
+  });

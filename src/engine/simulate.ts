@@ -1,0 +1,323 @@
+/**
+ * Monte Carlo of the scenario's model. Variance by Andersen's QE scheme with his martingale
+ * correction (Andersen 2008, "Simple and efficient simulation of the Heston stochastic volatility
+ * model", J. Comp. Finance 11(3), sections 3.2.4 and 7.2; γ1 = γ2 = ½, ψc = 1.5), or by
+ * full-truncation Euler (Lord, Koekkoek & van Dijk 2010) for comparison; constant variance is
+ * stepped exactly. Jumps are compound Poisson with the compensated drift −λk̄Δ. Paths run in
+ * fixed blocks, each with its own generator from (seed, block), and block sums are added in block
+ * order, so the numbers do not depend on how many workers ran the blocks.
+ */
+import { modelSpec, type JumpLaw } from './characteristic';
+import { discountFactor, dividendRate, riskFreeRate } from './market';
+import { BlockRandom } from './random';
+import type { Market, Model, OptionSpec } from './types';
+
+export const BLOCK_PATHS = 2048;
+
+export interface SimulationSettings {
+  horizon: number;
+  stepsPerYear: number;
+  paths: number;
+  seed: number;
+  antithetic: boolean;
+  scheme: 'qe' | 'euler';
+  options: OptionSpec[];
+}
+
+/** Sums one block contributes; blocks are combined by adding these in block order. */
+export interface BlockSums {
+  /** per option: Σ discounted payoff, Σ payoff² */
+  payoff: Float64Array;
+  payoffSq: Float64Array;
+  /** per option: Σ of squared antithetic pair averages (for standard errors) */
+  pairSq: Float64Array;
+  count: number;
+  /** Σ S_T/S_0 and Σ (S_T/S_0)² */
+  terminalSum: number;
+  terminalSq: number;
+  jumps: number;
+  /** terminal log-returns ln(S_T/S_0), for quantiles and the histogram */
+  terminal: Float64Array;
+}
+
+export function stepCount(s: Pick<SimulationSettings, 'horizon' | 'stepsPerYear'>): number {
+  return Math.max(1, Math.round(s.horizon * s.stepsPerYear));
+}
+
+function jumpSampler(jl: JumpLaw, dt: number): ((rng: BlockRandom) => number) | null {
+  if (jl.type === 'none' || !(jl.lambda > 0)) return null;
+  const lam = jl.lambda * dt;
+  const p0 = Math.exp(-lam);
+  const size =
+    jl.type === 'lognormal'
+      ? (rng: BlockRandom) => jl.mean + jl.stdev * rng.normal()
+      : (rng: BlockRandom) =>
+          rng.uniform() < jl.p
+            ? -jl.upMean * Math.log(rng.uniform())
+            : jl.downMean * Math.log(rng.uniform());
+  return (rng) => {
+    // Poisson count by inversion (λΔ is small), then the sum of that many log-jumps
+    let u = rng.uniform();
+    let k = 0;
+    let p = p0;
+    let total = 0;
+    while (u > p && k < 50) {
+      u -= p;
+      k++;
+      p *= lam / k;
+      total += size(rng);
+    }
+    return total;
+  };
+}
+
+function compensator(jl: JumpLaw): number {
+  if (jl.type === 'lognormal') return jl.lambda * Math.expm1(jl.mean + 0.5 * jl.stdev * jl.stdev);
+  if (jl.type === 'double-exponential')
+    return jl.lambda * (jl.p / (1 - jl.upMean) + (1 - jl.p) / (1 + jl.downMean) - 1);
+  return 0;
+}
+
+/** Runs one block of paths and returns its sums. */
+export function simulateBlock(
+  market: Market,
+  model: Model,
+  s: SimulationSettings,
+  block: number,
+): BlockSums {
+  const spec = modelSpec(model);
+  const n = stepCount(s);
+  const dt = s.horizon / n;
+  const first = block * BLOCK_PATHS;
+  const count = Math.min(BLOCK_PATHS, s.paths - first);
+  const rng = new BlockRandom(s.seed, block);
+  const jumpStep = jumpSampler(spec.jumps, dt);
+  const drift =
+    (riskFreeRate(market, s.horizon) - dividendRate(market, s.horizon) - compensator(spec.jumps)) *
+    dt;
+  const optionSteps = s.options.map((o) => Math.min(n, Math.max(1, Math.round(o.expiry / dt))));
+  const discounts = s.options.map((_, i) => discountFactor(market, optionSteps[i] * dt));
+  const sums: BlockSums = {
+    payoff: new Float64Array(s.options.length),
+    payoffSq: new Float64Array(s.options.length),
+    pairSq: new Float64Array(s.options.length),
+    count,
+    terminalSum: 0,
+    terminalSq: 0,
+    jumps: 0,
+    terminal: new Float64Array(count),
+  };
+  const d = spec.diffusion;
+  const heston = d.type === 'heston';
+  const kappa = heston ? d.kappa : 0;
+  const theta = heston ? d.theta : 0;
+  const xi = heston ? d.xi : 0;
+  const rho = heston ? d.rho : 0;
+  const ekd = Math.exp(-kappa * dt);
+  const k0 = (-rho * kappa * theta * dt) / Math.max(xi, 1e-300);
+  const k1 = 0.5 * dt * ((kappa * rho) / Math.max(xi, 1e-300) - 0.5) - rho / Math.max(xi, 1e-300);
+  const k2 = 0.5 * dt * ((kappa * rho) / Math.max(xi, 1e-300) - 0.5) + rho / Math.max(xi, 1e-300);
+  const k3 = 0.5 * dt * (1 - rho * rho);
+  const A = k2 + 0.5 * k3;
+  const values = new Float64Array(s.options.length);
+  const previous = new Float64Array(s.options.length);
+  const pairZ = new Float64Array(2 * n);
+  const pairU = new Float64Array(n);
+  for (let p = 0; p < count; p++) {
+    const mirror = s.antithetic && p % 2 === 1;
+    let x = 0; // ln(S/S0)
+    let v = heston ? d.v0 : d.variance;
+    let oi = 0;
+    for (let step = 1; step <= n; step++) {
+      let z1: number, z2: number, u: number;
+      if (mirror) {
+        z1 = -pairZ[2 * step - 2];
+        z2 = -pairZ[2 * step - 1];
+        u = 1 - pairU[step - 1];
+      } else {
+        z1 = rng.normal();
+        z2 = rng.normal();
+        u = rng.uniform();
+        if (s.antithetic) {
+          pairZ[2 * step - 2] = z1;
+          pairZ[2 * step - 1] = z2;
+          pairU[step - 1] = u;
+        }
+      }
+      if (!heston) {
+        x += drift - 0.5 * v * dt + Math.sqrt(v * dt) * z1;
+      } else if (s.scheme === 'euler' || xi === 0) {
+        const vp = Math.max(v, 0);
+        const vNext = v + kappa * (theta - vp) * dt + xi * Math.sqrt(vp * dt) * z2;
+        x +=
+          drift - 0.5 * vp * dt + Math.sqrt(vp * dt) * (rho * z2 + Math.sqrt(1 - rho * rho) * z1);
+        v = vNext;
+      } else {
+        const m = theta + (v - theta) * ekd;
+        const s2 =
+          (v * xi * xi * ekd * (1 - ekd)) / kappa +
+          (theta * xi * xi * (1 - ekd) * (1 - ekd)) / (2 * kappa);
+        const psi = s2 / (m * m);
+        let vNext: number;
+        let k0Star: number;
+        if (psi <= 1.5) {
+          const i2 = 2 / psi;
+          const b2 = i2 - 1 + Math.sqrt(i2) * Math.sqrt(i2 - 1);
+          const a = m / (1 + b2);
+          const b = Math.sqrt(b2);
+          vNext = a * (b + z2) * (b + z2);
+          k0Star =
+            A < 1 / (2 * a)
+              ? (-A * b2 * a) / (1 - 2 * A * a) +
+                0.5 * Math.log(1 - 2 * A * a) -
+                (k1 + 0.5 * k3) * v
+              : k0;
+        } else {
+          const pp = (psi - 1) / (psi + 1);
+          const beta = (1 - pp) / m;
+          vNext = u <= pp ? 0 : Math.log((1 - pp) / (1 - u)) / beta;
+          k0Star =
+            A < beta ? -Math.log(pp + (beta * (1 - pp)) / (beta - A)) - (k1 + 0.5 * k3) * v : k0;
+        }
+        x += drift + k0Star + k1 * v + k2 * vNext + Math.sqrt(Math.max(0, k3 * (v + vNext))) * z1;
+        v = vNext;
+      }
+      if (jumpStep) {
+        const j = jumpStep(rng);
+        if (j !== 0) sums.jumps++;
+        x += j;
+      }
+      while (oi < optionSteps.length && optionSteps[oi] === step) {
+        const o = s.options[oi];
+        const S = market.spot * Math.exp(x);
+        values[oi] = discounts[oi] * Math.max(0, o.type === 'call' ? S - o.strike : o.strike - S);
+        oi++;
+      }
+    }
+    for (let i = 0; i < values.length; i++) {
+      sums.payoff[i] += values[i];
+      sums.payoffSq[i] += values[i] * values[i];
+      if (mirror) {
+        const pair = 0.5 * (values[i] + previous[i]);
+        sums.pairSq[i] += pair * pair;
+      }
+      previous[i] = values[i];
+    }
+    const level = Math.exp(x);
+    sums.terminalSum += level;
+    sums.terminalSq += level * level;
+    sums.terminal[p] = x;
+  }
+  return sums;
+}
+
+export interface SimulationResult {
+  seed: number;
+  paths: number;
+  steps: number;
+  estimates: { price: number; stdError: number }[];
+  /** S_T: mean with its standard error (the martingale check: mean ≈ forward), stdev, quantiles */
+  terminal: {
+    mean: number;
+    meanStdError: number;
+    stdev: number;
+    quantiles: Record<string, number>;
+  };
+  jumpsPerPath: number;
+  elapsedMs: number;
+}
+
+export const MAX_PATH_STEPS = 2e9;
+
+/** Adds block sums in block order and turns them into estimates. */
+export function combineBlocks(
+  market: Market,
+  s: SimulationSettings,
+  blocks: readonly BlockSums[],
+  elapsedMs: number,
+): SimulationResult {
+  const k = s.options.length;
+  const payoff = new Float64Array(k);
+  const payoffSq = new Float64Array(k);
+  const pairSq = new Float64Array(k);
+  let n = 0;
+  let tSum = 0;
+  let tSq = 0;
+  let jumps = 0;
+  for (const b of blocks) {
+    for (let i = 0; i < k; i++) {
+      payoff[i] += b.payoff[i];
+      payoffSq[i] += b.payoffSq[i];
+      pairSq[i] += b.pairSq[i];
+    }
+    n += b.count;
+    tSum += b.terminalSum;
+    tSq += b.terminalSq;
+    jumps += b.jumps;
+  }
+  const estimates = Array.from({ length: k }, (_, i) => {
+    const mean = payoff[i] / n;
+    if (s.antithetic) {
+      const pairs = n / 2;
+      const pairVar = pairSq[i] / pairs - mean * mean;
+      return { price: mean, stdError: Math.sqrt(Math.max(0, pairVar) / Math.max(1, pairs - 1)) };
+    }
+    const variance = payoffSq[i] / n - mean * mean;
+    return { price: mean, stdError: Math.sqrt(Math.max(0, variance) / Math.max(1, n - 1)) };
+  });
+  // quantiles from the first blocks' terminal values (deterministic for any worker count)
+  const sample: number[] = [];
+  for (const b of blocks) {
+    for (const x of b.terminal) sample.push(x);
+    if (sample.length >= 65536) break;
+  }
+  sample.sort((a, b) => a - b);
+  const q = (p: number) =>
+    market.spot * Math.exp(sample[Math.min(sample.length - 1, Math.floor(p * sample.length))]);
+  const meanLevel = tSum / n;
+  const sdLevel = Math.sqrt(Math.max(0, tSq / n - meanLevel * meanLevel));
+  return {
+    seed: s.seed,
+    paths: n,
+    steps: stepCount(s),
+    estimates,
+    terminal: {
+      mean: market.spot * meanLevel,
+      meanStdError: (market.spot * sdLevel) / Math.sqrt(Math.max(1, n - 1)),
+      stdev: market.spot * sdLevel,
+      quantiles: {
+        p01: q(0.01),
+        p05: q(0.05),
+        p25: q(0.25),
+        p50: q(0.5),
+        p75: q(0.75),
+        p95: q(0.95),
+        p99: q(0.99),
+      },
+    },
+    jumpsPerPath: jumps / n,
+    elapsedMs,
+  };
+}
+
+export function blockCount(s: Pick<SimulationSettings, 'paths'>): number {
+  return Math.ceil(s.paths / BLOCK_PATHS);
+}
+
+/** The whole simulation in this thread (CLI, tests); workers run blocks and combine the same way. */
+export function simulate(
+  market: Market,
+  model: Model,
+  settings: SimulationSettings,
+): SimulationResult {
+  const started = performance.now();
+  const order = settings.options.map((o, i) => ({ o, i })).sort((a, b) => a.o.expiry - b.o.expiry);
+  const sorted = { ...settings, options: order.map((x) => x.o) };
+  const blocks: BlockSums[] = [];
+  for (let b = 0; b < blockCount(settings); b++)
+    blocks.push(simulateBlock(market, model, sorted, b));
+  const r = combineBlocks(market, sorted, blocks, performance.now() - started);
+  const estimates = new Array(order.length);
+  order.forEach((x, j) => (estimates[x.i] = r.estimates[j]));
+  return { ...r, estimates };
+}
