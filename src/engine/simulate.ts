@@ -9,6 +9,7 @@
  */
 import { modelSpec, type JumpLaw } from './characteristic';
 import { discountFactor, dividendRate, riskFreeRate } from './market';
+import { histogramInto, type HistogramSpec } from './paths-view';
 import { BlockRandom } from './random';
 import type { Market, Model, OptionSpec } from './types';
 
@@ -22,6 +23,20 @@ export interface SimulationSettings {
   antithetic: boolean;
   scheme: 'qe' | 'euler';
   options: OptionSpec[];
+  /** block 0 keeps spot and variance at this many evenly spaced times, for fans and sample paths */
+  recordTimes?: number;
+  /** bins for a histogram of ln(S_T/S_0) over all paths */
+  histogram?: HistogramSpec;
+}
+
+/** What block 0 records: per path, spot and variance at `times`, and the path's jump count. */
+export interface PathRecord {
+  times: Float64Array;
+  /** [path × time], spot */
+  spot: Float32Array;
+  /** [path × time], variance */
+  variance: Float32Array;
+  jumpCounts: Uint16Array;
 }
 
 /** Sums one block contributes; blocks are combined by adding these in block order. */
@@ -38,6 +53,8 @@ export interface BlockSums {
   jumps: number;
   /** terminal log-returns ln(S_T/S_0), for quantiles and the histogram */
   terminal: Float64Array;
+  record?: PathRecord;
+  histogram?: Uint32Array;
 }
 
 export function stepCount(s: Pick<SimulationSettings, 'horizon' | 'stepsPerYear'>): number {
@@ -121,6 +138,21 @@ export function simulateBlock(
   const A = k2 + 0.5 * k3;
   const values = new Float64Array(s.options.length);
   const previous = new Float64Array(s.options.length);
+  const obs = block === 0 && s.recordTimes ? Math.min(s.recordTimes, n) : 0;
+  const obsStep =
+    obs > 0
+      ? Int32Array.from({ length: obs }, (_, i) => Math.round(((i + 1) * n) / obs))
+      : new Int32Array(0);
+  if (obs > 0) {
+    sums.record = {
+      times: Float64Array.from(obsStep, (st) => st * dt),
+      spot: new Float32Array(count * obs),
+      variance: new Float32Array(count * obs),
+      jumpCounts: new Uint16Array(count),
+    };
+  }
+  const rec = sums.record;
+  if (s.histogram) sums.histogram = new Uint32Array(s.histogram.bins);
   const pairZ = new Float64Array(2 * n);
   const pairU = new Float64Array(n);
   for (let p = 0; p < count; p++) {
@@ -128,6 +160,8 @@ export function simulateBlock(
     let x = 0; // ln(S/S0)
     let v = heston ? d.v0 : d.variance;
     let oi = 0;
+    let ri = 0;
+    let pathJumps = 0;
     for (let step = 1; step <= n; step++) {
       let z1: number, z2: number, u: number;
       if (mirror) {
@@ -184,8 +218,16 @@ export function simulateBlock(
       }
       if (jumpStep) {
         const j = jumpStep(rng);
-        if (j !== 0) sums.jumps++;
+        if (j !== 0) {
+          sums.jumps++;
+          pathJumps++;
+        }
         x += j;
+      }
+      if (rec && ri < obs && obsStep[ri] === step) {
+        rec.spot[p * obs + ri] = market.spot * Math.exp(x);
+        rec.variance[p * obs + ri] = v;
+        ri++;
       }
       while (oi < optionSteps.length && optionSteps[oi] === step) {
         const o = s.options[oi];
@@ -203,10 +245,12 @@ export function simulateBlock(
       }
       previous[i] = values[i];
     }
+    if (rec) rec.jumpCounts[p] = Math.min(65535, pathJumps);
     const level = Math.exp(x);
     sums.terminalSum += level;
     sums.terminalSq += level * level;
     sums.terminal[p] = x;
+    if (sums.histogram) histogramInto(sums.histogram, s.histogram!, x);
   }
   return sums;
 }

@@ -65,4 +65,6 @@ export interface EngineApi {
   price(request: PriceRequest): PriceResponse;
   sensitivities(request: SensitivityRequest): ParameterSensitivity[];
   book(request: BookRequest): SetRevaluation;
+  /** density of ln(S_T/F) at the given points */
+  density(model: Model, expiry: number, points: number[]): number[];
 }

@@ -58,4 +58,5 @@ export const engineHandlers: EngineApi = {
   price: computePrices,
   sensitivities: (req) => smileSensitivities(req.market, req.model, req.expiry, req.moneyness),
   book: (req) => revalueSet(req.base, req.scenarios, req.positions, req.ladder),
+  density: (model, expiry, points) => logReturnDensity(model, expiry, points),
 };

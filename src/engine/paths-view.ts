@@ -1,0 +1,64 @@
+/** What the Paths page draws, computed next to the simulation (in the worker), not in the page. */
+import { roughVariance } from './cumulants';
+import { modelSpec } from './characteristic';
+import type { PathRecord } from './simulate';
+import type { Model } from './types';
+
+export const FAN_PERCENTILES = [0.01, 0.05, 0.25, 0.5, 0.75, 0.95, 0.99];
+
+export interface PathsView {
+  times: number[];
+  /** spot and variance percentiles over time: [percentile][time] */
+  spotFan: number[][];
+  varianceFan: number[][];
+  /** a few individual paths: [path][time] */
+  samples: number[][];
+  /** paths with 0, 1, 2, … 9, 10+ jumps (from the recorded block) */
+  jumpCountHistogram: number[];
+}
+
+function percentileRows(values: Float32Array, paths: number, obs: number): number[][] {
+  const rows = FAN_PERCENTILES.map(() => new Array<number>(obs));
+  const column = new Float64Array(paths);
+  for (let t = 0; t < obs; t++) {
+    for (let p = 0; p < paths; p++) column[p] = values[p * obs + t];
+    column.sort();
+    FAN_PERCENTILES.forEach(
+      (q, i) => (rows[i][t] = column[Math.min(paths - 1, Math.floor(q * paths))]),
+    );
+  }
+  return rows;
+}
+
+export function pathsView(record: PathRecord, sampleCount = 24): PathsView {
+  const obs = record.times.length;
+  const paths = record.jumpCounts.length;
+  const jumpCountHistogram = new Array(11).fill(0);
+  for (const c of record.jumpCounts) jumpCountHistogram[Math.min(10, c)]++;
+  return {
+    times: Array.from(record.times),
+    spotFan: percentileRows(record.spot, paths, obs),
+    varianceFan: percentileRows(record.variance, paths, obs),
+    samples: Array.from({ length: Math.min(sampleCount, paths) }, (_, p) =>
+      Array.from(record.spot.subarray(p * obs, (p + 1) * obs)),
+    ),
+    jumpCountHistogram,
+  };
+}
+
+export interface HistogramSpec {
+  lo: number;
+  hi: number;
+  bins: number;
+}
+
+/** Fixed bins for ln(S_T/S_0): the same for every block, so counts add exactly. */
+export function terminalBins(model: Model, horizon: number, bins = 80): HistogramSpec {
+  const sd = Math.sqrt(roughVariance(modelSpec(model), horizon));
+  return { lo: -6 * sd, hi: 4 * sd, bins };
+}
+
+export function histogramInto(counts: Uint32Array, spec: HistogramSpec, x: number): void {
+  const i = Math.floor(((x - spec.lo) / (spec.hi - spec.lo)) * spec.bins);
+  if (i >= 0 && i < spec.bins) counts[i]++;
+}
