@@ -1,4 +1,7 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { NavLink, Outlet } from 'react-router';
+import { seedDemoScenariosOnce } from '../store/demo-seed';
 import { ServiceStatus } from './ServiceStatus';
 import { ThemeToggle } from './ThemeToggle';
 import { UpdatePrompt } from './UpdatePrompt';
@@ -14,6 +17,12 @@ const PAGES = [
 ];
 
 export function AppShell() {
+  const qc = useQueryClient();
+  useEffect(() => {
+    void seedDemoScenariosOnce().then((seeded) => {
+      if (seeded) void qc.invalidateQueries({ queryKey: ['local'] });
+    });
+  }, [qc]);
   return (
     <div className="min-h-screen">
       <UpdatePrompt />

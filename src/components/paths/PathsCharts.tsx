@@ -74,20 +74,18 @@ export function PathsCharts({
     const spot: { data: Data[]; layout: Partial<Layout> } = {
       data: [
         ...fanTraces(view.times, view.spotFan, t.base),
-        ...view.samples
-          .slice(0, 12)
-          .map(
-            (p) =>
-              ({
-                type: 'scatter',
-                mode: 'lines',
-                x,
-                y: p,
-                line: { color: t.stressed, width: 0.7 },
-                opacity: 0.6,
-                hoverinfo: 'skip',
-              }) as Data,
-          ),
+        ...view.samples.slice(0, 12).map(
+          (p) =>
+            ({
+              type: 'scatter',
+              mode: 'lines',
+              x,
+              y: p,
+              line: { color: t.stressed, width: 0.7 },
+              opacity: 0.6,
+              hoverinfo: 'skip',
+            }) as Data,
+        ),
       ],
       layout: {
         ...base(t),

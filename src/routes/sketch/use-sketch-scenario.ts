@@ -9,7 +9,8 @@ import { useSearchParams } from 'react-router';
 import type { ScenarioDocument } from '../../engine/schema';
 import { parseScenario } from '../../engine/validate-model';
 import { appDb } from '../../store/db';
-import { demoScenarios } from '../../store/demo-scenarios';
+import { newScenario } from '../../engine/scenario-defaults';
+import { seedDemoScenariosOnce } from '../../store/demo-seed';
 import { getScenario, listScenarios, saveScenario } from '../../store/scenarios';
 
 export type SaveState = 'loading' | 'saved' | 'saving' | 'unsaved' | 'invalid' | 'error';
@@ -20,12 +21,17 @@ async function initialScenario(requested: string | null): Promise<ScenarioDocume
     const found = await getScenario(db, requested);
     if (found) return found.document;
   }
+  await seedDemoScenariosOnce();
   const all = await listScenarios(db);
   if (all.length > 0) return all[0].document;
-  const today = new Date().toISOString().slice(0, 10);
-  const demos = demoScenarios(today);
-  for (const d of [...demos].reverse()) await saveScenario(db, d);
-  return demos[0];
+  // every scenario was deleted: start a fresh one
+  const fresh = newScenario(
+    crypto.randomUUID(),
+    'New scenario',
+    new Date().toISOString().slice(0, 10),
+  );
+  await saveScenario(db, fresh);
+  return fresh;
 }
 
 export function useSketchScenario() {
