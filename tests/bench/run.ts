@@ -4,6 +4,7 @@
  */
 import { benchBook } from './book';
 import { benchCalibration } from './calibration';
+import { benchMonteCarlo } from './monte-carlo';
 import { benchSurface } from './surface';
 
 console.log(`Saltation benchmarks — Node ${process.versions.node}, one core\n`);
@@ -17,3 +18,6 @@ console.table(benchBook());
 
 console.log('\nCalibration to a 13 × 8 surface with noise, one thread.');
 console.table(benchCalibration());
+
+console.log('\nMonte Carlo, Bates with QE variance and jumps.');
+console.table(await benchMonteCarlo());

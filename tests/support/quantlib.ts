@@ -198,3 +198,49 @@ export function quantlibCalibrateHeston(
     rho: model.rho(),
   };
 }
+
+/**
+ * QuantLib's Monte Carlo for a European call under Black-Scholes (its MCEuropeanHestonEngine
+ * stops in this port with "sequence generator dimensionality (104) != timeSteps (53)").
+ */
+export function quantlibMcBlackScholesCall(
+  spot: number,
+  rate: number,
+  dividendYield: number,
+  sigma: number,
+  strike: number,
+  days: number,
+  steps: number,
+  samples: number,
+): { price: number; stdError: number } {
+  const { rTs, qTs } = flatCurves(rate, dividendYield);
+  const dc = new ql.Actual365Fixed();
+  const vol = new ql.Handle<ql.BlackVolTermStructure>(
+    new ql.BlackConstantVol().bcvInit1(
+      today,
+      new ql.TARGET(),
+      sigma,
+      dc,
+    ) as unknown as ql.BlackVolTermStructure,
+  );
+  const process = new ql.BlackScholesMertonProcess(
+    new ql.Handle(new ql.SimpleQuote(spot)),
+    qTs,
+    rTs,
+    vol,
+  );
+  const rng = new (ql as unknown as { PseudoRandom: new () => unknown }).PseudoRandom();
+  const engine = new ql.MakeMCEuropeanEngine(rng as never)
+    .mmceeInit(process)
+    .withSteps(steps)
+    .withSamples(samples)
+    .withSeed(42)
+    .withAntitheticVariate(true)
+    .f();
+  const option = new ql.VanillaOption(
+    new ql.PlainVanillaPayoff(ql.Option.Type.Call, strike),
+    new ql.EuropeanExercise(ql.DateExt.add(today, days)),
+  );
+  option.setPricingEngine(engine);
+  return { price: option.NPV(), stdError: option.errorEstimate() };
+}
