@@ -34,3 +34,12 @@ export const PLOT_CONFIG = {
   responsive: true,
   modeBarButtonsToRemove: ['lasso2d', 'select2d'],
 } as const;
+
+/** The frame every chart shares: transparent backgrounds and the app's font in ink. */
+export function chartFrame(t: ChartTheme, size = 12) {
+  return {
+    paper_bgcolor: 'rgba(0,0,0,0)',
+    plot_bgcolor: 'rgba(0,0,0,0)',
+    font: { family: 'Source Sans 3, sans-serif', color: t.ink, size },
+  };
+}

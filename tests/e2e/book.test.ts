@@ -1,18 +1,7 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, startApp, trackErrors, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { appAndBrowser, trackErrors } from './harness';
 
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.close();
-});
+const env = appAndBrowser();
 
 const POSITIONS = [
   'id,type,strike,expiry,quantity,tradePrice',
@@ -25,10 +14,10 @@ const POSITIONS = [
 
 describe('Book', () => {
   it('uploads a positions file, picks a scenario set, and shows the P&L matrix and the gap ladder', async () => {
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     const errors = trackErrors(page);
-    await page.goto(app.url); // the first visit puts the demo desk's scenarios on the device
+    await page.goto(env.app().url); // the first visit puts the demo desk's scenarios on the device
     await expect.poll(() => page.getByTestId('smile-chart').count(), { timeout: 20000 }).toBe(1);
     await page.getByRole('link', { name: 'Book' }).click();
     await page.getByLabel('New set name').fill('Weekly crash ladder');

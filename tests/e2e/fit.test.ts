@@ -1,18 +1,7 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, startApp, trackErrors, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { appAndBrowser, trackErrors } from './harness';
 
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.close();
-});
+const env = appAndBrowser();
 
 /** A small invented chain on the demo index (spot 4250): a skewed short end, flatter beyond. */
 function chain(): string {
@@ -36,10 +25,10 @@ function chain(): string {
 
 describe('Fit', () => {
   it('uploads a quote CSV, fits Bates with progress, and saves the fitted scenario', async () => {
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     const errors = trackErrors(page);
-    await page.goto(app.url);
+    await page.goto(env.app().url);
     await expect.poll(() => page.getByTestId('smile-chart').count(), { timeout: 20000 }).toBe(1);
     await page.getByRole('link', { name: 'Fit' }).click();
     await page

@@ -3,6 +3,7 @@ import type { Server } from 'node:http';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../server/app';
 import { freePort } from '../../server/bootstrap/postgres';
 import { testDb } from '../support/database';
@@ -43,4 +44,19 @@ export function trackErrors(page: Page): string[] {
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
   return errors;
+}
+
+/** Starts the app and a browser before a file's tests and stops both after them. */
+export function appAndBrowser(): { app: () => RunningApp; browser: () => Browser } {
+  let app: RunningApp | undefined;
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    app = await startApp();
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await app?.close();
+  });
+  return { app: () => app!, browser: () => browser! };
 }

@@ -1,25 +1,14 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, startApp, trackErrors, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { appAndBrowser, trackErrors } from './harness';
 
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.close();
-});
+const env = appAndBrowser();
 
 describe('Paths', () => {
   it('runs a simulation to 100 %, then after a reload reopens the same run from the cache', async () => {
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     const errors = trackErrors(page);
-    await page.goto(app.url);
+    await page.goto(env.app().url);
     await expect.poll(() => page.getByTestId('smile-chart').count(), { timeout: 20000 }).toBe(1);
     await page.getByRole('link', { name: 'Paths' }).click();
     await page.getByLabel('Paths', { exact: true }).fill('8192');

@@ -1,25 +1,14 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, startApp, trackErrors, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { appAndBrowser, trackErrors } from './harness';
 
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.close();
-});
+const env = appAndBrowser();
 
 describe('the app shell', () => {
   it('loads with the service status, then still loads offline after a reload', async () => {
-    const context = await browser.newContext();
+    const context = await env.browser().newContext();
     const page = await context.newPage();
     const errors = trackErrors(page);
-    await page.goto(app.url);
+    await page.goto(env.app().url);
     await expect
       .poll(() => page.getByRole('link', { name: 'Saltation home' }).isVisible())
       .toBe(true);
@@ -47,10 +36,10 @@ describe('the app shell', () => {
   });
 
   it('keeps a scenario created in the Library across a reload', async () => {
-    const context = await browser.newContext();
+    const context = await env.browser().newContext();
     const page = await context.newPage();
     const errors = trackErrors(page);
-    await page.goto(`${app.url}/library`);
+    await page.goto(`${env.app().url}/library`);
     const name = `Weekly crash ladder ${Date.now()}`;
     await page.getByLabel('New scenario').fill(name);
     await page.getByRole('button', { name: 'Create' }).click();

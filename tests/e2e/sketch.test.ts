@@ -1,25 +1,14 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, startApp, trackErrors, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { appAndBrowser, trackErrors } from './harness';
 
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.close();
-});
+const env = appAndBrowser();
 
 describe('Sketch', () => {
   it('draws the stressed smile and fills the stressed column when a stress slider is dragged', async () => {
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     const errors = trackErrors(page);
-    await page.goto(app.url);
+    await page.goto(env.app().url);
     const chart = page.getByTestId('smile-chart');
     await expect.poll(() => chart.getAttribute('data-stressed'), { timeout: 20000 }).toBe('no');
     await expect
@@ -67,10 +56,10 @@ describe('Sketch', () => {
   });
 
   it('solves the jumps to placed target vols and opens the new stressed scenario', async () => {
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     const errors = trackErrors(page);
-    await page.goto(app.url);
+    await page.goto(env.app().url);
     await expect
       .poll(() => page.getByTestId('smile-chart').getAttribute('data-stressed'), { timeout: 20000 })
       .not.toBeNull();

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SetRevaluation } from '../../engine/book-set';
-import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';
 
@@ -79,9 +79,7 @@ export function LadderChart({
       tickfont: { color: t.muted },
     };
     const layout: Partial<Layout> = {
-      paper_bgcolor: 'rgba(0,0,0,0)',
-      plot_bgcolor: 'rgba(0,0,0,0)',
-      font: { family: 'Source Sans 3, sans-serif', color: t.ink, size: 12 },
+      ...chartFrame(t, 12),
       height: 480,
       margin: { l: 70, r: 12, t: 16, b: 44 },
       barmode: 'overlay',

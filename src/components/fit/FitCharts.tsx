@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { Residual } from '../../engine/calibrate';
-import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';
@@ -17,9 +17,7 @@ export function FitCharts({ residuals, compare }: { residuals: Residual[]; compa
     const data: Data[] = [];
     const layout: Record<string, unknown> = {
       grid: { rows, columns, pattern: 'independent', xgap: 0.08, ygap: 0.3 },
-      paper_bgcolor: 'rgba(0,0,0,0)',
-      plot_bgcolor: 'rgba(0,0,0,0)',
-      font: { family: 'Source Sans 3, sans-serif', color: t.ink, size: 11 },
+      ...chartFrame(t, 11),
       height: 210 * rows + 50,
       margin: { l: 40, r: 10, t: 30, b: 30 },
       legend: { orientation: 'h', y: 1.08 },
@@ -121,9 +119,7 @@ export function ResidualMap({ residuals }: { residuals: Residual[] }) {
     ];
     const axis = { gridcolor: t.grid, tickfont: { color: t.muted } };
     const layout: Partial<Layout> = {
-      paper_bgcolor: 'rgba(0,0,0,0)',
-      plot_bgcolor: 'rgba(0,0,0,0)',
-      font: { family: 'Source Sans 3, sans-serif', color: t.ink, size: 11 },
+      ...chartFrame(t, 11),
       height: 300,
       margin: { l: 50, r: 10, t: 10, b: 40 },
       xaxis: { ...axis, title: { text: 'strike' } },

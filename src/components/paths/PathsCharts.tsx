@@ -1,14 +1,12 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import { FAN_PERCENTILES, type HistogramSpec, type PathsView } from '../../engine/paths-view';
-import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';
 
 const base = (t: ReturnType<typeof chartTheme>): Partial<Layout> => ({
-  paper_bgcolor: 'rgba(0,0,0,0)',
-  plot_bgcolor: 'rgba(0,0,0,0)',
-  font: { family: 'Source Sans 3, sans-serif', color: t.ink, size: 11 },
+  ...chartFrame(t, 11),
   margin: { l: 55, r: 10, t: 30, b: 40 },
   height: 300,
   showlegend: false,

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { DensityCurve } from '../../workers/engine-api';
-import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
 import { useTheme } from '../theme';
 import { PlotlyChart } from '../PlotlyChart';
 
@@ -38,9 +38,7 @@ export function DensityChart({ density, title }: { density: DensityCurve; title:
       tickfont: { color: t.muted },
     };
     const layout: Partial<Layout> = {
-      paper_bgcolor: 'rgba(0,0,0,0)',
-      plot_bgcolor: 'rgba(0,0,0,0)',
-      font: { family: 'Source Sans 3, sans-serif', color: t.ink, size: 12 },
+      ...chartFrame(t, 12),
       margin: { l: 50, r: 12, t: 30, b: 40 },
       height: 260,
       title: { text: title, font: { size: 13 }, x: 0, xanchor: 'left' },

@@ -3,7 +3,7 @@ import { useMemo } from 'react';
 import { normCdf } from '../../engine/normal';
 import type { SmileSlice, SmileSurface } from '../../engine/smile';
 import type { TargetVol } from '../../engine/solve-to-targets';
-import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
 import { useTheme } from '../theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
@@ -70,9 +70,7 @@ export function SmileChart({
     const data: Data[] = [];
     const layout: Partial<Layout> = {
       grid: { rows, columns, pattern: 'independent', xgap: 0.08, ygap: 0.22 },
-      paper_bgcolor: 'rgba(0,0,0,0)',
-      plot_bgcolor: 'rgba(0,0,0,0)',
-      font: { family: 'Source Sans 3, sans-serif', color: t.ink, size: 12 },
+      ...chartFrame(t, 12),
       margin: { l: 44, r: 12, t: 28, b: 36 },
       height: 250 * rows + 40,
       legend: { orientation: 'h', y: 1.06 + 0.02 * rows, x: 0 },

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SmileSurface } from '../../engine/smile';
-import { chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
 import { useTheme } from '../theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
@@ -28,9 +28,7 @@ export function TermStructureChart({
     const data: Data[] = [];
     const layout: Record<string, unknown> = {
       grid: { rows: 1, columns: 3, pattern: 'independent', xgap: 0.1 },
-      paper_bgcolor: 'rgba(0,0,0,0)',
-      plot_bgcolor: 'rgba(0,0,0,0)',
-      font: { family: 'Source Sans 3, sans-serif', color: t.ink, size: 12 },
+      ...chartFrame(t, 12),
       margin: { l: 44, r: 12, t: 30, b: 36 },
       height: 250,
       showlegend: false,

@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
 import { Link } from 'react-router';
 import { CautionNote } from '../../components/CautionNote';
+import { ProgressBar } from '../../components/ProgressBar';
 import { CsvInput } from '../../components/CsvInput';
 import { FitCharts, ResidualMap } from '../../components/fit/FitCharts';
 import { ParameterTable, ResidualTable, VerdictPanel } from '../../components/fit/FitReport';
@@ -197,24 +198,11 @@ export function FitPage() {
             </button>
           </div>
           {progress !== null && (
-            <div className="space-y-1" role="status">
-              <div className="h-2 w-full rounded bg-rule">
-                <div
-                  className="h-2 rounded bg-teal"
-                  style={{ width: `${Math.round(100 * progress)}%` }}
-                />
-              </div>
-              <div className="flex justify-between text-xs text-muted">
-                <span data-testid="fit-progress">{Math.round(100 * progress)} %</span>
-                <button
-                  type="button"
-                  className="text-stressed"
-                  onClick={() => job.current?.cancel()}
-                >
-                  Cancel
-                </button>
-              </div>
-            </div>
+            <ProgressBar
+              fraction={progress}
+              onCancel={() => job.current?.cancel()}
+              testId="fit-progress"
+            />
           )}
           {error && (
             <p role="alert" className="text-sm text-stressed">

@@ -1,6 +1,7 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { CautionNote } from '../../components/CautionNote';
+import { ProgressBar } from '../../components/ProgressBar';
 import { formatNumber, formatTenor } from '../../components/format';
 import { PathsCharts } from '../../components/paths/PathsCharts';
 import { simulationSettingsSchema } from '../../engine/schema';
@@ -187,20 +188,7 @@ export function PathsPage() {
             Simulate
           </button>
           {progress !== null && (
-            <div role="status" className="space-y-1">
-              <div className="h-2 rounded bg-rule">
-                <div
-                  className="h-2 rounded bg-teal"
-                  style={{ width: `${Math.round(100 * progress)}%` }}
-                />
-              </div>
-              <div className="flex justify-between text-xs text-muted">
-                <span data-testid="paths-progress">{Math.round(100 * progress)} %</span>
-                <button type="button" className="text-stressed" onClick={cancel}>
-                  Cancel
-                </button>
-              </div>
-            </div>
+            <ProgressBar fraction={progress} onCancel={cancel} testId="paths-progress" />
           )}
           {(formError || error) && (
             <p role="alert" className="text-sm text-stressed">
