@@ -15,6 +15,8 @@ export interface PathsView {
   samples: number[][];
   /** paths with 0, 1, 2, … 9, 10+ jumps (from the recorded block) */
   jumpCountHistogram: number[];
+  /** histogram of the log-size of each step's jumps in the recorded block */
+  jumpSizes: { centres: number[]; counts: number[] };
 }
 
 function percentileRows(values: Float32Array, paths: number, obs: number): number[][] {
@@ -35,7 +37,19 @@ export function pathsView(record: PathRecord, sampleCount = 24): PathsView {
   const paths = record.jumpCounts.length;
   const jumpCountHistogram = new Array(11).fill(0);
   for (const c of record.jumpCounts) jumpCountHistogram[Math.min(10, c)]++;
+  const sizes = record.jumpSizes.subarray(0, record.jumpSizeCount);
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const x of sizes) {
+    lo = Math.min(lo, x);
+    hi = Math.max(hi, x);
+  }
+  const bins = 40;
+  const width = sizes.length > 0 && hi > lo ? (hi - lo) / bins : 1;
+  const counts = new Array(sizes.length > 0 ? bins : 0).fill(0);
+  for (const x of sizes) counts[Math.min(bins - 1, Math.floor((x - lo) / width))]++;
   return {
+    jumpSizes: { centres: counts.map((_, i) => lo + (i + 0.5) * width), counts },
     times: Array.from(record.times),
     spotFan: percentileRows(record.spot, paths, obs),
     varianceFan: percentileRows(record.variance, paths, obs),

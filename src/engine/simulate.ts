@@ -37,6 +37,9 @@ export interface PathRecord {
   /** [path × time], variance */
   variance: Float32Array;
   jumpCounts: Uint16Array;
+  /** the log-size of each step's jumps (at most 50,000 kept) */
+  jumpSizes: Float32Array;
+  jumpSizeCount: number;
 }
 
 /** Sums one block contributes; blocks are combined by adding these in block order. */
@@ -46,6 +49,12 @@ export interface BlockSums {
   payoffSq: Float64Array;
   /** per option: Σ of squared antithetic pair averages (for standard errors) */
   pairSq: Float64Array;
+  /**
+   * Control variate (the discounted spot at the option's expiry, whose mean is known): per option,
+   * sums over units (antithetic pairs, or paths) of x, y, x², y², xy, with x the payoff.
+   */
+  cv: Float64Array;
+  units: number;
   count: number;
   /** Σ S_T/S_0 and Σ (S_T/S_0)² */
   terminalSum: number;
@@ -118,6 +127,8 @@ export function simulateBlock(
     payoff: new Float64Array(s.options.length),
     payoffSq: new Float64Array(s.options.length),
     pairSq: new Float64Array(s.options.length),
+    cv: new Float64Array(5 * s.options.length),
+    units: 0,
     count,
     terminalSum: 0,
     terminalSq: 0,
@@ -138,6 +149,8 @@ export function simulateBlock(
   const A = k2 + 0.5 * k3;
   const values = new Float64Array(s.options.length);
   const previous = new Float64Array(s.options.length);
+  const controls = new Float64Array(s.options.length);
+  const previousControls = new Float64Array(s.options.length);
   const obs = block === 0 && s.recordTimes ? Math.min(s.recordTimes, n) : 0;
   const obsStep =
     obs > 0
@@ -149,6 +162,8 @@ export function simulateBlock(
       spot: new Float32Array(count * obs),
       variance: new Float32Array(count * obs),
       jumpCounts: new Uint16Array(count),
+      jumpSizes: new Float32Array(50000),
+      jumpSizeCount: 0,
     };
   }
   const rec = sums.record;
@@ -221,6 +236,8 @@ export function simulateBlock(
         if (j !== 0) {
           sums.jumps++;
           pathJumps++;
+          if (rec && rec.jumpSizeCount < rec.jumpSizes.length)
+            rec.jumpSizes[rec.jumpSizeCount++] = j;
         }
         x += j;
       }
@@ -233,9 +250,12 @@ export function simulateBlock(
         const o = s.options[oi];
         const S = market.spot * Math.exp(x);
         values[oi] = discounts[oi] * Math.max(0, o.type === 'call' ? S - o.strike : o.strike - S);
+        controls[oi] = discounts[oi] * S;
         oi++;
       }
     }
+    const unitDone = !s.antithetic || mirror;
+    if (unitDone) sums.units++;
     for (let i = 0; i < values.length; i++) {
       sums.payoff[i] += values[i];
       sums.payoffSq[i] += values[i] * values[i];
@@ -243,7 +263,18 @@ export function simulateBlock(
         const pair = 0.5 * (values[i] + previous[i]);
         sums.pairSq[i] += pair * pair;
       }
+      if (unitDone) {
+        const ux = mirror ? 0.5 * (values[i] + previous[i]) : values[i];
+        const uy = mirror ? 0.5 * (controls[i] + previousControls[i]) : controls[i];
+        const c = sums.cv;
+        c[5 * i] += ux;
+        c[5 * i + 1] += uy;
+        c[5 * i + 2] += ux * ux;
+        c[5 * i + 3] += uy * uy;
+        c[5 * i + 4] += ux * uy;
+      }
       previous[i] = values[i];
+      previousControls[i] = controls[i];
     }
     if (rec) rec.jumpCounts[p] = Math.min(65535, pathJumps);
     const level = Math.exp(x);
@@ -259,7 +290,13 @@ export interface SimulationResult {
   seed: number;
   paths: number;
   steps: number;
-  estimates: { price: number; stdError: number }[];
+  /** plain estimates, and with the discounted spot as control variate */
+  estimates: {
+    price: number;
+    stdError: number;
+    priceControlled: number;
+    stdErrorControlled: number;
+  }[];
   /** S_T: mean with its standard error (the martingale check: mean ≈ forward), stdev, quantiles */
   terminal: {
     mean: number;
@@ -284,6 +321,8 @@ export function combineBlocks(
   const payoff = new Float64Array(k);
   const payoffSq = new Float64Array(k);
   const pairSq = new Float64Array(k);
+  const cv = new Float64Array(5 * k);
+  let units = 0;
   let n = 0;
   let tSum = 0;
   let tSq = 0;
@@ -294,20 +333,50 @@ export function combineBlocks(
       payoffSq[i] += b.payoffSq[i];
       pairSq[i] += b.pairSq[i];
     }
+    for (let j = 0; j < 5 * k; j++) cv[j] += b.cv[j];
+    units += b.units;
     n += b.count;
     tSum += b.terminalSum;
     tSq += b.terminalSq;
     jumps += b.jumps;
   }
+  const horizonCarry = riskFreeRate(market, s.horizon) - dividendRate(market, s.horizon);
+  const dt = s.horizon / stepCount(s);
   const estimates = Array.from({ length: k }, (_, i) => {
     const mean = payoff[i] / n;
+    let stdError: number;
     if (s.antithetic) {
       const pairs = n / 2;
       const pairVar = pairSq[i] / pairs - mean * mean;
-      return { price: mean, stdError: Math.sqrt(Math.max(0, pairVar) / Math.max(1, pairs - 1)) };
+      stdError = Math.sqrt(Math.max(0, pairVar) / Math.max(1, pairs - 1));
+    } else {
+      const variance = payoffSq[i] / n - mean * mean;
+      stdError = Math.sqrt(Math.max(0, variance) / Math.max(1, n - 1));
     }
-    const variance = payoffSq[i] / n - mean * mean;
-    return { price: mean, stdError: Math.sqrt(Math.max(0, variance) / Math.max(1, n - 1)) };
+    // control variate: y = DF(t)·S_t, E[y] = DF(t)·S_0·e^{(r − q)t} with the simulation's own carry
+    const t = Math.min(stepCount(s), Math.max(1, Math.round(s.options[i].expiry / dt))) * dt;
+    const ey = discountFactor(market, t) * market.spot * Math.exp(horizonCarry * t);
+    const [sx, sy, sxx, syy, sxy] = [
+      cv[5 * i],
+      cv[5 * i + 1],
+      cv[5 * i + 2],
+      cv[5 * i + 3],
+      cv[5 * i + 4],
+    ];
+    const mx = sx / units;
+    const my = sy / units;
+    const vxx = sxx / units - mx * mx;
+    const vyy = syy / units - my * my;
+    const vxy = sxy / units - mx * my;
+    const beta = vyy > 0 ? vxy / vyy : 0;
+    const priceControlled = mx - beta * (my - ey);
+    const resid = Math.max(0, vxx - beta * vxy);
+    return {
+      price: mean,
+      stdError,
+      priceControlled,
+      stdErrorControlled: Math.sqrt(resid / Math.max(1, units - 1)),
+    };
   });
   // quantiles from the first blocks' terminal values (deterministic for any worker count)
   const sample: number[] = [];

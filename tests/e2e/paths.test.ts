@@ -36,4 +36,24 @@ describe('Paths', () => {
     expect(errors).toEqual([]);
     await context.close();
   });
+
+  it('cancels a long run at once and keeps nothing of it in the cache', async () => {
+    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await context.newPage();
+    const errors = trackErrors(page);
+    await page.goto(`${env.app().url}/paths`);
+    await page.getByLabel('Paths', { exact: true }).fill('2000000');
+    await page.getByLabel('Steps per day', { exact: true }).fill('4');
+    await page.getByRole('button', { name: 'Simulate' }).click();
+    await expect.poll(() => page.getByTestId('paths-progress').count(), { timeout: 20000 }).toBe(1);
+    const before = await page.getByText(/^Cache: /).textContent();
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    await expect
+      .poll(() => page.getByRole('alert').textContent(), { timeout: 5000 })
+      .toBe('Cancelled: nothing was kept.');
+    expect(await page.getByTestId('paths-progress').count()).toBe(0);
+    expect(await page.getByText(/^Cache: /).textContent()).toBe(before);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
 });

@@ -217,3 +217,32 @@ describe('simulation settings', () => {
     });
   }
 });
+
+describe('the control variate', () => {
+  it('narrows the standard error with the discounted spot as control, and stays within 3 s.e. of COS', () => {
+    const m: Model = {
+      kind: 'bates',
+      kappa: 1.5768,
+      theta: 0.0398,
+      volOfVol: 0.5751,
+      rho: -0.5711,
+      v0: 0.0175,
+      jumpIntensity: 0.5,
+      jumpMean: -0.1,
+      jumpStdev: 0.15,
+    };
+    const market = { spot: 100, rate: 0.02 };
+    const options = [
+      { type: 'call' as const, strike: 80, expiry: 1 },
+      { type: 'call' as const, strike: 100, expiry: 1 },
+    ];
+    const r = simulate(market, m, base({ paths: 32768, options }));
+    const cos = priceOptions(market, m, options);
+    r.estimates.forEach((e, i) => {
+      expect(e.stdErrorControlled).toBeLessThan(e.stdError);
+      expect(Math.abs(e.priceControlled - cos[i].price)).toBeLessThan(
+        3 * e.stdErrorControlled + 0.005,
+      );
+    });
+  });
+});

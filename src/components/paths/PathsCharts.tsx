@@ -157,7 +157,24 @@ export function PathsCharts({
         },
       };
     }
-    return { spot, variance, jumps, terminal };
+    const sizes = {
+      data: [
+        {
+          type: 'bar',
+          x: view.jumpSizes.centres.map((c) => 100 * c),
+          y: view.jumpSizes.counts,
+          marker: { color: t.stressed },
+        } as Data,
+      ],
+      layout: {
+        ...base(t),
+        title: { text: 'Jump sizes, log-return in % (recorded block)', font: { size: 13 }, x: 0 },
+        xaxis: { ...axis, ticksuffix: '%' },
+        yaxis: axis,
+        bargap: 0.05,
+      },
+    };
+    return { spot, variance, jumps, terminal, sizes };
   }, [view, histogram, spec, density, meanTerminal, theme]);
   return (
     <div className="grid gap-4 xl:grid-cols-2" data-testid="paths-charts">

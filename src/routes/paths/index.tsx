@@ -244,8 +244,10 @@ export function PathsPage() {
                         'option',
                         'Monte Carlo',
                         'std. error',
+                        'with control variate',
+                        'its std. error',
                         'analytic (COS)',
-                        'difference / s.e.',
+                        '(controlled − COS) / s.e.',
                       ].map((h) => (
                         <th key={h} className="px-3 font-normal">
                           {h}
@@ -262,10 +264,15 @@ export function PathsPage() {
                         </td>
                         <td className="px-3">{formatNumber(e.price, 4)}</td>
                         <td className="px-3">{formatNumber(e.stdError, 4)}</td>
+                        <td className="px-3">{formatNumber(e.priceControlled, 4)}</td>
+                        <td className="px-3">{formatNumber(e.stdErrorControlled, 4)}</td>
                         <td className="px-3">{formatNumber(run.analytic[i], 4)}</td>
                         <td className="px-3">
-                          {e.stdError > 0
-                            ? ((e.price - run.analytic[i]) / e.stdError).toFixed(2)
+                          {e.stdErrorControlled > 0
+                            ? (
+                                (e.priceControlled - run.analytic[i]) /
+                                e.stdErrorControlled
+                              ).toFixed(2)
                             : '—'}
                         </td>
                       </tr>
