@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
 import { Link } from 'react-router';
 import { CautionNote } from '../../components/CautionNote';
+import { ScenarioSelect } from '../../components/ScenarioSelect';
 import { ProgressBar } from '../../components/ProgressBar';
 import { CsvInput } from '../../components/CsvInput';
 import { FitCharts, ResidualMap } from '../../components/fit/FitCharts';
@@ -113,25 +114,16 @@ export function FitPage() {
       <CautionNote />
       <div className="grid gap-6 lg:grid-cols-[22rem_1fr]">
         <aside className="space-y-4">
-          <label className="flex flex-col gap-1 text-sm">
-            <span className="text-xs font-semibold uppercase tracking-wide text-muted">
-              Market and starting point from
-            </span>
-            <select
-              value={source.id}
-              onChange={(e) => setSourceId(e.target.value)}
-              className="rounded border border-rule bg-panel px-2 py-1.5"
-            >
-              {scenarios.data!.map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.name}
-                </option>
-              ))}
-            </select>
+          <ScenarioSelect
+            label="Market and starting point from"
+            scenarios={scenarios.data!}
+            value={source.id}
+            onChange={setSourceId}
+          >
             <span className="text-xs text-muted">
               spot {source.document.market.spot}, valuation {source.document.valuationDate}
             </span>
-          </label>
+          </ScenarioSelect>
           <label className="flex flex-col gap-1 text-sm">
             <span className="text-xs font-semibold uppercase tracking-wide text-muted">Model</span>
             <select

@@ -1,6 +1,7 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { CautionNote } from '../../components/CautionNote';
+import { ScenarioSelect } from '../../components/ScenarioSelect';
 import { ProgressBar } from '../../components/ProgressBar';
 import { formatNumber, formatTenor } from '../../components/format';
 import { PathsCharts } from '../../components/paths/PathsCharts';
@@ -121,22 +122,12 @@ export function PathsPage() {
       <CautionNote />
       <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
         <aside className="min-w-0 space-y-3">
-          <label className="flex flex-col gap-1 text-sm">
-            <span className="text-xs font-semibold uppercase tracking-wide text-muted">
-              Scenario (with its stress)
-            </span>
-            <select
-              value={source.id}
-              onChange={(e) => setSourceId(e.target.value)}
-              className="rounded border border-rule bg-panel px-2 py-1.5"
-            >
-              {scenarios.data!.map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.name}
-                </option>
-              ))}
-            </select>
-          </label>
+          <ScenarioSelect
+            label="Scenario (with its stress)"
+            scenarios={scenarios.data!}
+            value={source.id}
+            onChange={setSourceId}
+          />
           {field('paths', 'Paths')}
           {field('stepsPerDay', 'Steps per day')}
           {field('horizonDays', 'Horizon (days)')}
