@@ -27,6 +27,8 @@ export interface VolQuote {
   impliedVol: number;
   /** relative weight (e.g. from the bid-ask spread); 1 when absent */
   weight?: number;
+  /** the quote's own forward for its expiry, when the chain gives one (else the market's) */
+  forward?: number;
 }
 
 export interface CalibrationRequest {
@@ -78,7 +80,7 @@ export function modelVols(
   );
   for (const [T, idx] of byExpiry) {
     const F = forwardPrice(market, T);
-    const ks = Float64Array.from(idx, (i) => Math.log(quotes[i].strike / F));
+    const ks = Float64Array.from(idx, (i) => Math.log(quotes[i].strike / (quotes[i].forward ?? F)));
     const n = idx.length;
     const call = new Float64Array(n);
     const put = new Float64Array(n);
@@ -105,7 +107,7 @@ function quoteWeights(
     if (scheme === 'uniform') return base;
     // normalised Black vega φ(d1)√T at the quote's vol, relative to its ATM value
     const s = q.impliedVol * Math.sqrt(q.expiry);
-    const d1 = -Math.log(q.strike / forwardPrice(market, q.expiry)) / s + 0.5 * s;
+    const d1 = -Math.log(q.strike / (q.forward ?? forwardPrice(market, q.expiry))) / s + 0.5 * s;
     return (base * normPdf(d1)) / normPdf(0.5 * s);
   });
 }

@@ -29,7 +29,40 @@ const ALIASES: Record<string, string> = {
   k: 'strike',
   optiontype: 'type',
   cp: 'type',
+  fwd: 'forward',
+  r: 'rate',
+  q: 'dividend',
+  dividendyield: 'dividend',
 };
+
+/** The expiry's forward and discount factor: the row's forward or rate/dividend, else the market's. */
+function carry(
+  f: Record<string, string | undefined>,
+  market: Market,
+  T: number,
+): { forward: number; discount: number; own: boolean } | string {
+  const num = (key: string) => {
+    const t = (f[key] ?? '').trim();
+    if (t === '') return undefined;
+    const n = Number(t);
+    return Number.isFinite(n) ? n : NaN;
+  };
+  const fwd = num('forward');
+  const r = num('rate');
+  const q = num('dividend');
+  if ([fwd, r, q].some((x) => x !== undefined && Number.isNaN(x))) {
+    return 'forward, rate and dividend must be numbers when given';
+  }
+  if (fwd !== undefined && !(fwd > 0)) return 'the forward must be positive';
+  const discount = r !== undefined ? Math.exp(-r * T) : discountFactor(market, T);
+  const own = fwd !== undefined || r !== undefined || q !== undefined;
+  const forward =
+    fwd ??
+    (own
+      ? market.spot * Math.exp(((r ?? market.rate ?? 0) - (q ?? market.dividendYield ?? 0)) * T)
+      : forwardPrice(market, T));
+  return { forward, discount, own };
+}
 
 function header(h: string): string {
   const key = h
@@ -105,6 +138,11 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
       bad('strike', 'must be positive');
       continue;
     }
+    const c = carry(f, market, T);
+    if (typeof c === 'string') {
+      bad('forward', c);
+      continue;
+    }
     let vol: number;
     let weight = 1;
     const ivText = (f.impliedvol ?? '').trim();
@@ -165,7 +203,11 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
       continue;
     }
     seen.add(key);
-    quotes.push({ strike: K, expiry: T, impliedVol: vol, weight });
+    quotes.push(
+      c.own
+        ? { strike: K, expiry: T, impliedVol: vol, weight, forward: c.forward }
+        : { strike: K, expiry: T, impliedVol: vol, weight },
+    );
   }
   // spread weights are relative: scale so they average 1
   const mean = quotes.reduce((a, q) => a + (q.weight ?? 1), 0) / Math.max(1, quotes.length);

@@ -204,7 +204,7 @@ export function FitPage() {
         </aside>
         <section className="min-w-0 space-y-4">
           <CsvInput
-            hint="expiry (date or years), strike, and impliedVol — or type with price, or bid and ask"
+            hint="expiry (date or years), strike, and impliedVol — or type with price, or bid and ask; optional forward, or rate and dividend, per row"
             placeholder={EXAMPLE}
             maxBytes={MAX_QUOTES_FILE_BYTES}
             testId="quotes-file"
