@@ -3,7 +3,7 @@
  * JSON response. Bad input exits 2 with {"error": {code, message, path}} on stderr and nothing on
  * stdout.
  */
-import { calibrate, price, revalue, simulate, smile } from './commands';
+import { calibrate, price, replay, revalue, simulate, smile } from './commands';
 import { CliError, fail, readRequest } from './io';
 
 const COMMANDS: Record<string, (request: unknown) => unknown> = {
@@ -12,8 +12,9 @@ const COMMANDS: Record<string, (request: unknown) => unknown> = {
   revalue,
   calibrate,
   simulate,
+  replay,
 };
-const LATER = ['replay'];
+const LATER: string[] = [];
 
 function main(argv: string[]) {
   const [command, ...rest] = argv;

@@ -7,9 +7,10 @@
  * fixed blocks, each with its own generator from (seed, block), and block sums are added in block
  * order, so the numbers do not depend on how many workers ran the blocks.
  */
-import { modelSpec, type JumpLaw } from './characteristic';
+import { modelSpec } from './characteristic';
 import { discountFactor, dividendRate, riskFreeRate } from './market';
 import { histogramInto, type HistogramSpec } from './paths-view';
+import { compensator, diffusionStep, jumpSampler } from './path-step';
 import { BlockRandom } from './random';
 import type { Market, Model, OptionSpec } from './types';
 
@@ -70,40 +71,6 @@ export function stepCount(s: Pick<SimulationSettings, 'horizon' | 'stepsPerYear'
   return Math.max(1, Math.round(s.horizon * s.stepsPerYear));
 }
 
-function jumpSampler(jl: JumpLaw, dt: number): ((rng: BlockRandom) => number) | null {
-  if (jl.type === 'none' || !(jl.lambda > 0)) return null;
-  const lam = jl.lambda * dt;
-  const p0 = Math.exp(-lam);
-  const size =
-    jl.type === 'lognormal'
-      ? (rng: BlockRandom) => jl.mean + jl.stdev * rng.normal()
-      : (rng: BlockRandom) =>
-          rng.uniform() < jl.p
-            ? -jl.upMean * Math.log(rng.uniform())
-            : jl.downMean * Math.log(rng.uniform());
-  return (rng) => {
-    // Poisson count by inversion (λΔ is small), then the sum of that many log-jumps
-    let u = rng.uniform();
-    let k = 0;
-    let p = p0;
-    let total = 0;
-    while (u > p && k < 50) {
-      u -= p;
-      k++;
-      p *= lam / k;
-      total += size(rng);
-    }
-    return total;
-  };
-}
-
-function compensator(jl: JumpLaw): number {
-  if (jl.type === 'lognormal') return jl.lambda * Math.expm1(jl.mean + 0.5 * jl.stdev * jl.stdev);
-  if (jl.type === 'double-exponential')
-    return jl.lambda * (jl.p / (1 - jl.upMean) + (1 - jl.p) / (1 + jl.downMean) - 1);
-  return 0;
-}
-
 /** Runs one block of paths and returns its sums. */
 export function simulateBlock(
   market: Market,
@@ -137,16 +104,8 @@ export function simulateBlock(
   };
   const d = spec.diffusion;
   const heston = d.type === 'heston';
-  const kappa = heston ? d.kappa : 0;
-  const theta = heston ? d.theta : 0;
-  const xi = heston ? d.xi : 0;
-  const rho = heston ? d.rho : 0;
-  const ekd = Math.exp(-kappa * dt);
-  const k0 = (-rho * kappa * theta * dt) / Math.max(xi, 1e-300);
-  const k1 = 0.5 * dt * ((kappa * rho) / Math.max(xi, 1e-300) - 0.5) - rho / Math.max(xi, 1e-300);
-  const k2 = 0.5 * dt * ((kappa * rho) / Math.max(xi, 1e-300) - 0.5) + rho / Math.max(xi, 1e-300);
-  const k3 = 0.5 * dt * (1 - rho * rho);
-  const A = k2 + 0.5 * k3;
+  const advance = diffusionStep(spec, s.scheme, dt, drift);
+  const state = new Float64Array(2);
   const values = new Float64Array(s.options.length);
   const previous = new Float64Array(s.options.length);
   const controls = new Float64Array(s.options.length);
@@ -193,44 +152,11 @@ export function simulateBlock(
           pairU[step - 1] = u;
         }
       }
-      if (!heston) {
-        x += drift - 0.5 * v * dt + Math.sqrt(v * dt) * z1;
-      } else if (s.scheme === 'euler' || xi === 0) {
-        const vp = Math.max(v, 0);
-        const vNext = v + kappa * (theta - vp) * dt + xi * Math.sqrt(vp * dt) * z2;
-        x +=
-          drift - 0.5 * vp * dt + Math.sqrt(vp * dt) * (rho * z2 + Math.sqrt(1 - rho * rho) * z1);
-        v = vNext;
-      } else {
-        const m = theta + (v - theta) * ekd;
-        const s2 =
-          (v * xi * xi * ekd * (1 - ekd)) / kappa +
-          (theta * xi * xi * (1 - ekd) * (1 - ekd)) / (2 * kappa);
-        const psi = s2 / (m * m);
-        let vNext: number;
-        let k0Star: number;
-        if (psi <= 1.5) {
-          const i2 = 2 / psi;
-          const b2 = i2 - 1 + Math.sqrt(i2) * Math.sqrt(i2 - 1);
-          const a = m / (1 + b2);
-          const b = Math.sqrt(b2);
-          vNext = a * (b + z2) * (b + z2);
-          k0Star =
-            A < 1 / (2 * a)
-              ? (-A * b2 * a) / (1 - 2 * A * a) +
-                0.5 * Math.log(1 - 2 * A * a) -
-                (k1 + 0.5 * k3) * v
-              : k0;
-        } else {
-          const pp = (psi - 1) / (psi + 1);
-          const beta = (1 - pp) / m;
-          vNext = u <= pp ? 0 : Math.log((1 - pp) / (1 - u)) / beta;
-          k0Star =
-            A < beta ? -Math.log(pp + (beta * (1 - pp)) / (beta - A)) - (k1 + 0.5 * k3) * v : k0;
-        }
-        x += drift + k0Star + k1 * v + k2 * vNext + Math.sqrt(Math.max(0, k3 * (v + vNext))) * z1;
-        v = vNext;
-      }
+      state[0] = x;
+      state[1] = v;
+      advance(state, z1, z2, u);
+      x = state[0];
+      v = state[1];
       if (jumpStep) {
         const j = jumpStep(rng);
         if (j !== 0) {
