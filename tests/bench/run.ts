@@ -5,6 +5,7 @@
 import { benchBook } from './book';
 import { benchCalibration } from './calibration';
 import { benchMonteCarlo } from './monte-carlo';
+import { benchReplay } from './replay';
 import { benchSurface } from './surface';
 
 console.log(`Saltation benchmarks — Node ${process.versions.node}, one core\n`);
@@ -21,3 +22,6 @@ console.table(benchCalibration());
 
 console.log('\nMonte Carlo, Bates with QE variance and jumps.');
 console.table(await benchMonteCarlo());
+
+console.log('\nHedge replay: 10,000 paths, daily rebalancing over one month, two legs, one core.');
+console.table(benchReplay());
