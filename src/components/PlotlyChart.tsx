@@ -1,5 +1,6 @@
 import { lazy, Suspense } from 'react';
 import type { PlotParams } from 'react-plotly.js';
+import { PLOT_CONFIG } from './chart-theme';
 
 // Plotly is large: it lives in its own chunk, loaded the first time a chart is shown.
 const Plot = lazy(async () => {
@@ -10,7 +11,14 @@ const Plot = lazy(async () => {
   return { default: createPlotlyComponent(Plotly.default ?? Plotly) };
 });
 
+/** A chart in the app's way: full width, resizing with its box, the shared tool bar. */
 export function PlotlyChart(props: PlotParams) {
+  const withDefaults: PlotParams = {
+    config: PLOT_CONFIG,
+    style: { width: '100%' },
+    useResizeHandler: true,
+    ...props,
+  };
   return (
     <Suspense
       fallback={
@@ -19,7 +27,7 @@ export function PlotlyChart(props: PlotParams) {
         </div>
       }
     >
-      <Plot {...props} />
+      <Plot {...withDefaults} />
     </Suspense>
   );
 }

@@ -43,3 +43,16 @@ export function chartFrame(t: ChartTheme, size = 12) {
     font: { family: 'Source Sans 3, sans-serif', color: t.ink, size },
   };
 }
+
+/** A bold title at the top left of one panel of a grid of small charts. */
+export function panelTitle(suffix: string, text: string, y = 1.14) {
+  return {
+    text: `<b>${text}</b>`,
+    xref: `x${suffix} domain`,
+    yref: `y${suffix} domain`,
+    x: 0,
+    y,
+    showarrow: false,
+    xanchor: 'left',
+  };
+}

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SetRevaluation } from '../../engine/book-set';
-import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme } from '../chart-theme';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';
 
@@ -95,13 +95,5 @@ export function LadderChart({
     };
     return { data, layout };
   }, [result, scenarioIndex, theme]);
-  return (
-    <PlotlyChart
-      data={figure.data}
-      layout={figure.layout}
-      config={PLOT_CONFIG}
-      style={{ width: '100%' }}
-      useResizeHandler
-    />
-  );
+  return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { Residual } from '../../engine/calibrate';
-import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, panelTitle } from '../chart-theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';
@@ -62,27 +62,11 @@ export function FitCharts({ residuals, compare }: { residuals: Residual[]; compa
       const axis = { gridcolor: t.grid, zerolinecolor: t.grid, tickfont: { color: t.muted } };
       layout[`xaxis${suffix}`] = axis;
       layout[`yaxis${suffix}`] = { ...axis, ticksuffix: '%' };
-      (layout.annotations as unknown[]).push({
-        text: `<b>${formatTenor(T)}</b>`,
-        xref: `x${suffix} domain`,
-        yref: `y${suffix} domain`,
-        x: 0,
-        y: 1.18,
-        showarrow: false,
-        xanchor: 'left',
-      });
+      (layout.annotations as unknown[]).push(panelTitle(suffix, formatTenor(T), 1.18));
     });
     return { data, layout: layout as Partial<Layout> };
   }, [residuals, compare, theme]);
-  return (
-    <PlotlyChart
-      data={figure.data}
-      layout={figure.layout}
-      config={PLOT_CONFIG}
-      style={{ width: '100%' }}
-      useResizeHandler
-    />
-  );
+  return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }
 
 export function ResidualMap({ residuals }: { residuals: Residual[] }) {
@@ -127,13 +111,5 @@ export function ResidualMap({ residuals }: { residuals: Residual[] }) {
     };
     return { data, layout };
   }, [residuals, theme]);
-  return (
-    <PlotlyChart
-      data={figure.data}
-      layout={figure.layout}
-      config={PLOT_CONFIG}
-      style={{ width: '100%' }}
-      useResizeHandler
-    />
-  );
+  return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }

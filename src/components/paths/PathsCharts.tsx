@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import { FAN_PERCENTILES, type HistogramSpec, type PathsView } from '../../engine/paths-view';
-import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme } from '../chart-theme';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';
 
@@ -178,36 +178,15 @@ export function PathsCharts({
   }, [view, histogram, spec, density, meanTerminal, theme]);
   return (
     <div className="grid gap-4 xl:grid-cols-2" data-testid="paths-charts">
-      <PlotlyChart
-        data={figures.spot.data}
-        layout={figures.spot.layout}
-        config={PLOT_CONFIG}
-        style={{ width: '100%' }}
-        useResizeHandler
-      />
-      <PlotlyChart
-        data={figures.variance.data}
-        layout={figures.variance.layout}
-        config={PLOT_CONFIG}
-        style={{ width: '100%' }}
-        useResizeHandler
-      />
+      <PlotlyChart data={figures.spot.data} layout={figures.spot.layout} />
+      <PlotlyChart data={figures.variance.data} layout={figures.variance.layout} />
       {figures.terminal && (
-        <PlotlyChart
-          data={figures.terminal.data}
-          layout={figures.terminal.layout}
-          config={PLOT_CONFIG}
-          style={{ width: '100%' }}
-          useResizeHandler
-        />
+        <PlotlyChart data={figures.terminal.data} layout={figures.terminal.layout} />
       )}
-      <PlotlyChart
-        data={figures.jumps.data}
-        layout={figures.jumps.layout}
-        config={PLOT_CONFIG}
-        style={{ width: '100%' }}
-        useResizeHandler
-      />
+      <PlotlyChart data={figures.jumps.data} layout={figures.jumps.layout} />
+      {view.jumpSizes.counts.length > 0 && (
+        <PlotlyChart data={figures.sizes.data} layout={figures.sizes.layout} />
+      )}
     </div>
   );
 }

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { DensityCurve } from '../../workers/engine-api';
-import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme } from '../chart-theme';
 import { useTheme } from '../theme';
 import { PlotlyChart } from '../PlotlyChart';
 
@@ -48,13 +48,5 @@ export function DensityChart({ density, title }: { density: DensityCurve; title:
     };
     return { data, layout };
   }, [density, title, theme]);
-  return (
-    <PlotlyChart
-      data={figure.data}
-      layout={figure.layout}
-      config={PLOT_CONFIG}
-      style={{ width: '100%' }}
-      useResizeHandler
-    />
-  );
+  return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }

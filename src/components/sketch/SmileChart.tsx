@@ -3,7 +3,7 @@ import { useMemo } from 'react';
 import { normCdf } from '../../engine/normal';
 import type { SmileSlice, SmileSurface } from '../../engine/smile';
 import type { TargetVol } from '../../engine/solve-to-targets';
-import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme } from '../chart-theme';
 import { useTheme } from '../theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
@@ -126,13 +126,5 @@ export function SmileChart({
     });
     return { data, layout };
   }, [base, stressed, mode, targets, theme]);
-  return (
-    <PlotlyChart
-      data={figure.data}
-      layout={figure.layout}
-      config={PLOT_CONFIG}
-      style={{ width: '100%' }}
-      useResizeHandler
-    />
-  );
+  return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SmileSurface } from '../../engine/smile';
-import { chartFrame, chartTheme, PLOT_CONFIG } from '../chart-theme';
+import { chartFrame, chartTheme, panelTitle } from '../chart-theme';
 import { useTheme } from '../theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';
@@ -70,25 +70,9 @@ export function TermStructureChart({
       };
       layout[`xaxis${suffix}`] = { ...axis, type: 'log', tickvals: x, ticktext: ticks };
       layout[`yaxis${suffix}`] = { ...axis, ticksuffix: '%' };
-      (layout.annotations as unknown[]).push({
-        text: `<b>${TITLES[m]}</b>`,
-        xref: `x${suffix} domain`,
-        yref: `y${suffix} domain`,
-        x: 0,
-        y: 1.14,
-        showarrow: false,
-        xanchor: 'left',
-      });
+      (layout.annotations as unknown[]).push(panelTitle(suffix, TITLES[m], 1.14));
     });
     return { data, layout: layout as Partial<Layout> };
   }, [base, stressed, theme]);
-  return (
-    <PlotlyChart
-      data={figure.data}
-      layout={figure.layout}
-      config={PLOT_CONFIG}
-      style={{ width: '100%' }}
-      useResizeHandler
-    />
-  );
+  return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }
