@@ -80,7 +80,7 @@ describe('hedge replay', () => {
         }
       }
     }
-  });
+  }, 30000);
 
   it('replays bit for bit in another process, and refuses bad positions with a field path', () => {
     const request = {
@@ -121,5 +121,5 @@ describe('hedge replay', () => {
       expect(r.status).toBe(2);
       expect(JSON.parse(r.stderr).error.path).toBe(path);
     }
-  });
+  }, 60000); // six CLI processes, each building its own hedge table
 });
