@@ -15,6 +15,7 @@ import {
   modelSchema,
   MAX_EXPIRY_YEARS,
   positionsSchema,
+  replayRequestSchema,
   simulationSettingsSchema,
   stressSchema,
 } from '../../src/engine/schema';
@@ -279,61 +280,8 @@ export function simulate(request: unknown) {
   };
 }
 
-const replayRequest = z.object({
-  market: marketSchema,
-  model: modelSchema,
-  position: z
-    .array(
-      z.object({
-        type: z.enum(['call', 'put'], { error: 'must be "call" or "put"' }),
-        strike: z.number().refine((x) => Number.isFinite(x) && x > 0, 'must be a positive number'),
-        expiry: z
-          .number()
-          .refine(
-            (x) => Number.isFinite(x) && x > 0 && x <= 5,
-            'must be above 0 and at most 5 years',
-          ),
-        quantity: z
-          .number()
-          .refine(
-            (q) => Number.isFinite(q) && q !== 0 && Math.abs(q) <= 1e7,
-            'must be non-zero and at most 1e7 in size',
-          ),
-      }),
-    )
-    .min(1, 'needs at least one leg')
-    .max(20),
-  hedge: z.object({
-    method: z.enum(['none', 'bs-delta', 'model-delta'], {
-      error: 'must be none, bs-delta or model-delta',
-    }),
-    rebalancesPerDay: z
-      .number()
-      .refine(
-        (n) => Number.isInteger(n) && n >= 1 && n <= 96,
-        'must be a whole number from 1 to 96',
-      ),
-    costBps: z
-      .number()
-      .refine((c) => Number.isFinite(c) && c >= 0 && c <= 1000, 'must be from 0 to 1000'),
-    hedgeVol: z
-      .number()
-      .refine((v) => Number.isFinite(v) && v > 0 && v < 5, 'must be above 0 and below 5')
-      .optional(),
-  }),
-  paths: z
-    .number()
-    .refine(
-      (n) => Number.isInteger(n) && n >= 2 && n <= 1_000_000,
-      'must be a whole number from 2 to 1000000',
-    ),
-  seed: z
-    .number()
-    .refine((n) => Number.isSafeInteger(n), 'must be a whole number (a safe integer)'),
-});
-
 export function replay(request: unknown) {
-  const req = parse(replayRequest, request);
+  const req = parse(replayRequestSchema, request);
   const r = replayHedge({
     market: req.market as Market,
     model: req.model as Model,
@@ -346,6 +294,8 @@ export function replay(request: unknown) {
     pnl: r.pnl,
     attribution: { diffusion: r.attribution.diffusion, jumps: r.attribution.jumps },
     tail: { diffusion: r.attribution.tailDiffusion, jumps: r.attribution.tailJumps },
+    worstPath: r.worstPath,
+    digest: r.digest,
     premium: r.premium,
     steps: r.steps,
     elapsedMs: r.elapsedMs,

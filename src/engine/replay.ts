@@ -14,6 +14,7 @@ import { normCdf } from './normal';
 import { compensator, diffusionStep, jumpSampler } from './path-step';
 import { priceOptions } from './pricing';
 import { BlockRandom } from './random';
+import { summariseReplay, type ReplaySummary } from './replay-summary';
 import { BLOCK_PATHS } from './simulate';
 import type { Market, Model } from './types';
 
@@ -35,18 +36,42 @@ export interface ReplayRequest {
   seed: number;
 }
 
-export interface ReplayResult {
-  pnl: { mean: number; stdev: number; var99: number; es99: number; worst: number };
-  /** mean P&L booked on steps with and without a jump, and the same over the worst 1 % of paths */
-  attribution: { diffusion: number; jumps: number; tailDiffusion: number; tailJumps: number };
+export interface ReplayResult extends ReplaySummary {
   premium: number;
   steps: number;
   paths: number;
   elapsedMs: number;
 }
 
-export function replay(req: ReplayRequest): ReplayResult {
-  const started = performance.now();
+/** One path followed step by step, for drill-down: values at each rebalance and at the end. */
+export interface PathTrace {
+  path: number;
+  times: number[];
+  spot: number[];
+  variance: number[];
+  /** shares of the underlying held after the rebalance at that time */
+  shares: number[];
+  /** cumulative P&L (undiscounted) at that time */
+  pnl: number[];
+  /** steps that had a jump: the time at the step's end and the log-jump */
+  jumps: { time: number; size: number }[];
+}
+
+/** Everything a replay needs before the first path: the grid, the hedge table, the premium. */
+export interface ReplayPlan {
+  request: ReplayRequest;
+  steps: number;
+  dt: number;
+  horizon: number;
+  premium: number;
+  runPath: (rng: BlockRandom, trace: PathTrace | null) => { total: number; jumpPart: number };
+}
+
+export function blockCountFor(paths: number): number {
+  return Math.ceil(paths / BLOCK_PATHS);
+}
+
+export function planReplay(req: ReplayRequest): ReplayPlan {
   const { market, model, position, hedge } = req;
   const horizon = Math.max(...position.map((l) => l.expiry));
   const n = Math.max(1, Math.round(horizon * 365 * hedge.rebalancesPerDay));
@@ -65,8 +90,6 @@ export function replay(req: ReplayRequest): ReplayResult {
   const cost = hedge.costBps / 1e4;
   const accrual = Math.exp(r * dt);
   const v0 = spec.diffusion.type === 'heston' ? spec.diffusion.v0 : 0;
-  const pnl = new Float64Array(req.paths);
-  const onJumps = new Float64Array(req.paths);
   const state = new Float64Array(2);
   const S0 = market.spot;
   // per rebalance time and leg: forward growth to expiry, the e^{−q τ} carry, √τ
@@ -110,102 +133,130 @@ export function replay(req: ReplayRequest): ReplayResult {
       a += l.quantity * Math.max(0, l.type === 'call' ? S - l.strike : l.strike - S);
     return a;
   };
-  for (let block = 0; block * BLOCK_PATHS < req.paths; block++) {
-    const rng = new BlockRandom(req.seed, block);
-    const count = Math.min(BLOCK_PATHS, req.paths - block * BLOCK_PATHS);
-    for (let p = 0; p < count; p++) {
-      const id = block * BLOCK_PATHS + p;
-      state[0] = 0;
-      state[1] = v0;
-      let shares = 0;
-      let cash = -premium;
-      let mark = premium;
-      let total = 0;
-      let jumpPart = 0;
-      for (let k = 0; k < n; k++) {
-        const S = S0 * Math.exp(state[0]);
-        const before = mark + shares * S + cash; // the portfolio's value at the start of the step
-        // rebalance; the cost is part of this step's P&L
-        const target = hedgeDelta(k, state[0], state[1]);
-        const trade = target - shares;
-        cash -= trade * S + cost * Math.abs(trade) * S;
-        shares = target;
-        // one step of the model
-        const z1 = rng.normal();
-        const z2 = rng.normal();
-        const u = rng.uniform();
-        advance(state, z1, z2, u);
-        let jumped = false;
-        if (jumps) {
-          const j = jumps(rng);
-          if (j !== 0) {
-            jumped = true;
-            state[0] += j;
-          }
-        }
-        const S1 = S0 * Math.exp(state[0]);
-        cash *= accrual;
-        cash += shares * q * S * dt; // dividends on the shares held
-        const settled = payoff(k + 1, S1);
-        cash += settled;
-        mark = k + 1 < n ? lookup(table, k + 1, state[1], state[0], S0).value : 0;
-        const after = mark + shares * S1 + cash;
-        const step = after - before;
-        total += step;
-        if (jumped) jumpPart += step;
-      }
-      // liquidate the hedge at the end
+  const runPath = (rng: BlockRandom, trace: PathTrace | null) => {
+    state[0] = 0;
+    state[1] = v0;
+    let shares = 0;
+    let cash = -premium;
+    let mark = premium;
+    let total = 0;
+    let jumpPart = 0;
+    for (let k = 0; k < n; k++) {
       const S = S0 * Math.exp(state[0]);
-      const closing = -cost * Math.abs(shares) * S;
-      total += closing;
-      pnl[id] = total * discountFactor(market, horizon);
-      onJumps[id] = jumpPart * discountFactor(market, horizon);
+      const before = mark + shares * S + cash; // the portfolio's value at the start of the step
+      // rebalance; the cost is part of this step's P&L
+      const target = hedgeDelta(k, state[0], state[1]);
+      const trade = target - shares;
+      cash -= trade * S + cost * Math.abs(trade) * S;
+      shares = target;
+      if (trace) {
+        trace.times.push(times[k]);
+        trace.spot.push(S);
+        trace.variance.push(state[1]);
+        trace.shares.push(shares);
+        trace.pnl.push(total);
+      }
+      // one step of the model
+      const z1 = rng.normal();
+      const z2 = rng.normal();
+      const u = rng.uniform();
+      advance(state, z1, z2, u);
+      let jumped = false;
+      if (jumps) {
+        const j = jumps(rng);
+        if (j !== 0) {
+          jumped = true;
+          state[0] += j;
+          if (trace) trace.jumps.push({ time: (k + 1) * dt, size: j });
+        }
+      }
+      const S1 = S0 * Math.exp(state[0]);
+      cash *= accrual;
+      cash += shares * q * S * dt; // dividends on the shares held
+      cash += payoff(k + 1, S1);
+      mark = k + 1 < n ? lookup(table, k + 1, state[1], state[0], S0).value : 0;
+      const step = mark + shares * S1 + cash - before;
+      total += step;
+      if (jumped) jumpPart += step;
     }
+    // liquidate the hedge at the end
+    total -= cost * Math.abs(shares) * S0 * Math.exp(state[0]);
+    if (trace) {
+      trace.times.push(horizon);
+      trace.spot.push(S0 * Math.exp(state[0]));
+      trace.variance.push(state[1]);
+      trace.shares.push(0);
+      trace.pnl.push(total);
+    }
+    return { total, jumpPart };
+  };
+  return { request: req, steps: n, dt, horizon, premium, runPath };
+}
+
+/** The discounted P&L of one block's paths, and the part of it booked on jump steps. */
+export function replayBlock(
+  plan: ReplayPlan,
+  block: number,
+): { pnl: Float64Array; onJumps: Float64Array } {
+  const { request } = plan;
+  const rng = new BlockRandom(request.seed, block);
+  const count = Math.min(BLOCK_PATHS, request.paths - block * BLOCK_PATHS);
+  const pnl = new Float64Array(count);
+  const onJumps = new Float64Array(count);
+  const discount = discountFactor(request.market, plan.horizon);
+  for (let p = 0; p < count; p++) {
+    const { total, jumpPart } = plan.runPath(rng, null);
+    pnl[p] = total * discount;
+    onJumps[p] = jumpPart * discount;
   }
+  return { pnl, onJumps };
+}
+
+/** Reruns the block of one path up to it and follows that path step by step. */
+export function tracePath(plan: ReplayPlan, path: number): PathTrace {
+  const block = Math.floor(path / BLOCK_PATHS);
+  const rng = new BlockRandom(plan.request.seed, block);
+  for (let p = block * BLOCK_PATHS; p < path; p++) plan.runPath(rng, null);
+  const trace: PathTrace = {
+    path,
+    times: [],
+    spot: [],
+    variance: [],
+    shares: [],
+    pnl: [],
+    jumps: [],
+  };
+  plan.runPath(rng, trace);
+  return trace;
+}
+
+/** Puts blocks (in block order) together and summarises them, as one thread would. */
+export function combineReplay(
+  plan: Pick<ReplayPlan, 'request' | 'steps' | 'premium'>,
+  blocks: { pnl: Float64Array; onJumps: Float64Array }[],
+  elapsedMs: number,
+): ReplayResult & { pnlByPath: Float64Array } {
+  const pnl = new Float64Array(plan.request.paths);
+  const onJumps = new Float64Array(plan.request.paths);
+  blocks.forEach((b, i) => {
+    pnl.set(b.pnl, i * BLOCK_PATHS);
+    onJumps.set(b.onJumps, i * BLOCK_PATHS);
+  });
   return {
-    ...summarise(pnl, onJumps),
-    premium,
-    steps: n,
-    paths: req.paths,
-    elapsedMs: performance.now() - started,
+    ...summariseReplay(pnl, onJumps),
+    premium: plan.premium,
+    steps: plan.steps,
+    paths: plan.request.paths,
+    elapsedMs,
+    pnlByPath: pnl,
   };
 }
 
-function summarise(
-  pnl: Float64Array,
-  onJumps: Float64Array,
-): Pick<ReplayResult, 'pnl' | 'attribution'> {
-  const n = pnl.length;
-  let sum = 0;
-  let sq = 0;
-  let jumpSum = 0;
-  for (let i = 0; i < n; i++) {
-    sum += pnl[i];
-    sq += pnl[i] * pnl[i];
-    jumpSum += onJumps[i];
-  }
-  const mean = sum / n;
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => pnl[a] - pnl[b] || a - b);
-  const tail = Math.max(1, Math.floor(0.01 * n));
-  let tailSum = 0;
-  let tailJumps = 0;
-  for (let i = 0; i < tail; i++) {
-    tailSum += pnl[order[i]];
-    tailJumps += onJumps[order[i]];
-  }
-  return {
-    pnl: {
-      mean,
-      stdev: Math.sqrt(Math.max(0, sq / n - mean * mean)),
-      var99: -pnl[order[tail - 1]],
-      es99: -tailSum / tail,
-      worst: pnl[order[0]],
-    },
-    attribution: {
-      diffusion: mean - jumpSum / n,
-      jumps: jumpSum / n,
-      tailDiffusion: tailSum / tail - tailJumps / tail,
-      tailJumps: tailJumps / tail,
-    },
-  };
+export function replay(req: ReplayRequest): ReplayResult {
+  const started = performance.now();
+  const plan = planReplay(req);
+  const blocks = Array.from({ length: blockCountFor(req.paths) }, (_, b) => replayBlock(plan, b));
+  const result: Partial<ReturnType<typeof combineReplay>> = combineReplay(plan, blocks, 0);
+  delete result.pnlByPath;
+  return { ...(result as ReplayResult), elapsedMs: performance.now() - started };
 }

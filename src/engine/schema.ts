@@ -212,3 +212,50 @@ export const simulationSettingsSchema = z
         });
     });
   });
+
+/** The longest position a hedge replay takes, in years. */
+export const MAX_REPLAY_YEARS = 2;
+
+/** A hedge replay request, shared by the Replay page, its worker and the CLI. */
+export const replayRequestSchema = z
+  .object({
+    market: marketSchema,
+    model: modelSchema,
+    position: z
+      .array(
+        z.object({
+          type: z.enum(['call', 'put'], { error: 'must be "call" or "put"' }),
+          strike: positiveUpTo(1e12),
+          expiry: finite.refine(
+            (x) => x > 0 && x <= MAX_REPLAY_YEARS,
+            `must be above 0 and at most ${MAX_REPLAY_YEARS} years (the replay horizon)`,
+          ),
+          quantity: finite.refine(
+            (q) => q !== 0 && Math.abs(q) <= 1e7,
+            'must be non-zero and at most 1e7 in size',
+          ),
+        }),
+      )
+      .min(1, 'needs at least one leg')
+      .max(20, 'takes at most 20 legs'),
+    hedge: z.object({
+      method: z.enum(['none', 'bs-delta', 'model-delta'], {
+        error: 'must be none, bs-delta or model-delta',
+      }),
+      rebalancesPerDay: wholeNumber(1, 96),
+      costBps: finite.refine((c) => c >= 0 && c <= 1000, 'must be from 0 to 1000'),
+      hedgeVol: finite.refine((v) => v > 0 && v < 5, 'must be above 0 and below 5').optional(),
+    }),
+    paths: wholeNumber(2, 1_000_000),
+    seed: finite.refine((n) => Number.isSafeInteger(n), 'must be a whole number (a safe integer)'),
+  })
+  .superRefine((r, ctx) => {
+    const horizon = Math.max(...r.position.map((l) => l.expiry));
+    const steps = Math.max(1, Math.round(horizon * 365 * r.hedge.rebalancesPerDay)) * r.paths;
+    if (steps > 5e8)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['paths'],
+        message: `paths × rebalances is ${steps.toExponential(2)}; the limit is 5e8`,
+      });
+  });

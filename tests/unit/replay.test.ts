@@ -3,7 +3,16 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { buildHedgeTable, lookup } from '../../src/engine/hedge-table';
 import { priceOptions } from '../../src/engine/pricing';
-import { replay } from '../../src/engine/replay';
+import {
+  blockCountFor,
+  combineReplay,
+  planReplay,
+  replay,
+  replayBlock,
+  tracePath,
+  type ReplayRequest,
+} from '../../src/engine/replay';
+import { discountFactor } from '../../src/engine/market';
 import type { Model } from '../../src/engine/types';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -122,4 +131,40 @@ describe('hedge replay', () => {
       expect(JSON.parse(r.stderr).error.path).toBe(path);
     }
   }, 60000); // six CLI processes, each building its own hedge table
+
+  it('blocks run on separate plans, as separate workers run them, combine to the bits of one thread; a traced path ends at its P&L', () => {
+    const request: ReplayRequest = {
+      market,
+      model: bates,
+      position: [
+        { type: 'put', strike: 95, expiry: 14 / 365, quantity: -2 },
+        { type: 'call', strike: 105, expiry: 21 / 365, quantity: 1 },
+      ],
+      hedge: { method: 'model-delta', rebalancesPerDay: 1, costBps: 2 },
+      paths: 5000,
+      seed: 11,
+    };
+    const whole = replay(request);
+    // two "workers", each with its own plan, taking alternate blocks
+    const plans = [planReplay(request), planReplay(request)];
+    const blocks = Array.from({ length: blockCountFor(request.paths) }, (_, b) =>
+      replayBlock(plans[b % 2], b),
+    );
+    const pooled = combineReplay(plans[0], blocks, 0);
+    expect(pooled.digest).toBe(whole.digest);
+    expect(pooled.pnl).toEqual(whole.pnl);
+    expect(pooled.attribution).toEqual(whole.attribution);
+    const other = replay({ ...request, seed: 12 });
+    expect(other.digest).not.toBe(whole.digest);
+
+    const trace = tracePath(plans[1], whole.worstPath);
+    expect(trace.times).toHaveLength(pooled.steps + 1);
+    const last = trace.pnl[trace.pnl.length - 1];
+    expect(last * discountFactor(market, 21 / 365)).toBe(pooled.pnlByPath[whole.worstPath]);
+    expect(pooled.pnlByPath[whole.worstPath]).toBe(whole.pnl.worst);
+    // the worst path of a short put under negative mean jumps has a jump (common practice)
+    expect(trace.jumps.length).toBeGreaterThan(0);
+    for (const j of trace.jumps) expect(trace.times).toContainEqual(j.time);
+  }, 60000);
 });
+

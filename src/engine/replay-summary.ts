@@ -1,0 +1,98 @@
+/**
+ * Summaries of a hedge replay's per-path P&L: moments, 99 % VaR and expected shortfall, the
+ * worst path, the split between steps with and without a jump, a histogram, and a digest of
+ * every path's P&L bits so two runs can be compared to the last bit.
+ */
+
+export interface ReplaySummary {
+  pnl: { mean: number; stdev: number; var99: number; es99: number; worst: number };
+  /** mean P&L booked on steps with and without a jump, and the same over the worst 1 % of paths */
+  attribution: { diffusion: number; jumps: number; tailDiffusion: number; tailJumps: number };
+  /** the index of the worst path, for drill-down */
+  worstPath: number;
+  /** FNV-1a over the IEEE-754 bits of every path's P&L, in path order */
+  digest: string;
+}
+
+export function summariseReplay(pnl: Float64Array, onJumps: Float64Array): ReplaySummary {
+  const n = pnl.length;
+  let sum = 0;
+  let sq = 0;
+  let jumpSum = 0;
+  for (let i = 0; i < n; i++) {
+    sum += pnl[i];
+    sq += pnl[i] * pnl[i];
+    jumpSum += onJumps[i];
+  }
+  const mean = sum / n;
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => pnl[a] - pnl[b] || a - b);
+  const tail = Math.max(1, Math.floor(0.01 * n));
+  let tailSum = 0;
+  let tailJumps = 0;
+  for (let i = 0; i < tail; i++) {
+    tailSum += pnl[order[i]];
+    tailJumps += onJumps[order[i]];
+  }
+  return {
+    pnl: {
+      mean,
+      stdev: Math.sqrt(Math.max(0, sq / n - mean * mean)),
+      var99: -pnl[order[tail - 1]],
+      es99: -tailSum / tail,
+      worst: pnl[order[0]],
+    },
+    attribution: {
+      diffusion: mean - jumpSum / n,
+      jumps: jumpSum / n,
+      tailDiffusion: tailSum / tail - tailJumps / tail,
+      tailJumps: tailJumps / tail,
+    },
+    worstPath: order[0],
+    digest: digestBits(pnl),
+  };
+}
+
+/** Two 32-bit FNV-1a streams (different offset bases) over the little-endian bytes. */
+export function digestBits(values: Float64Array): string {
+  const view = new DataView(values.buffer, values.byteOffset, values.byteLength);
+  let a = 0x811c9dc5;
+  let b = 0x050c5d1f;
+  for (let i = 0; i < values.byteLength; i++) {
+    const byte = view.getUint8(i);
+    a = Math.imul(a ^ byte, 0x01000193);
+    b = Math.imul(b ^ byte, 0x01000193) ^ (i & 0xff);
+  }
+  return (a >>> 0).toString(16).padStart(8, '0') + (b >>> 0).toString(16).padStart(8, '0');
+}
+
+export interface PnlHistogram {
+  lo: number;
+  hi: number;
+  counts: number[];
+}
+
+/** Counts on `bins` equal bins over [lo, hi]; values outside are put in the edge bins. */
+export function pnlHistogram(
+  pnl: Float64Array,
+  lo: number,
+  hi: number,
+  bins: number,
+): PnlHistogram {
+  const counts = new Array<number>(bins).fill(0);
+  const width = hi > lo ? (hi - lo) / bins : 1;
+  for (let i = 0; i < pnl.length; i++) {
+    const k = Math.floor((pnl[i] - lo) / width);
+    counts[Math.min(bins - 1, Math.max(0, k))]++;
+  }
+  return { lo, hi, counts };
+}
+
+export function range(values: Float64Array): [number, number] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < values.length; i++) {
+    if (values[i] < lo) lo = values[i];
+    if (values[i] > hi) hi = values[i];
+  }
+  return [lo, hi];
+}

@@ -1,0 +1,77 @@
+/**
+ * Hedge replays on the worker pool. Several requests on the same paths (the same market, model,
+ * seed and path count, different hedges) run one after another in one pool; each one's blocks
+ * come back transferred and are combined in block order, so the answer does not depend on the
+ * pool size. A separate long-lived worker follows single paths for drill-down.
+ */
+import { proxy, wrap, type Remote } from 'comlink';
+import {
+  blockCountFor,
+  combineReplay,
+  type ReplayRequest,
+  type ReplayResult,
+} from '../engine/replay';
+import { batches, poolSize, startPool, type PoolRun } from './block-pool';
+import type { ReplayApi } from './replay-api';
+
+export type ReplayOutcome = ReplayResult & { pnlByPath: Float64Array; workers: number };
+
+const makeWorker = () =>
+  new Worker(new URL('./replay.worker.ts', import.meta.url), {
+    type: 'module',
+    name: 'saltation-replay',
+  });
+
+export function runReplays(
+  requests: ReplayRequest[],
+  onProgress: (fraction: number) => void,
+  size = poolSize(),
+): PoolRun<ReplayOutcome[]> {
+  const perRequest = requests.map((r) => blockCountFor(r.paths));
+  const total = perRequest.reduce((a, b) => a + b, 0);
+  let done = 0;
+  const tick = proxy(() => onProgress(++done / total));
+  const run = startPool<ReplayApi, ReplayOutcome[]>(
+    makeWorker,
+    size,
+    Math.max(...perRequest),
+    async (apis, queues) => {
+      const outcomes: ReplayOutcome[] = [];
+      for (const request of requests) {
+        const started = performance.now();
+        const count = blockCountFor(request.paths);
+        const pnl = new Array<Float64Array>(count);
+        const onJumps = new Array<Float64Array>(count);
+        let meta = { request, steps: 0, premium: 0 };
+        await Promise.all(
+          apis.map(async (api, w) => {
+            const mine = queues[w].filter((b) => b < count);
+            for (const batch of batches(mine, 2)) {
+              const out = await api.runBlocks(request, batch, tick);
+              meta = { request, steps: out.steps, premium: out.premium };
+              batch.forEach((b, j) => {
+                pnl[b] = out.pnl[j];
+                onJumps[b] = out.onJumps[j];
+              });
+            }
+          }),
+        );
+        const blocks = pnl.map((p, b) => ({ pnl: p, onJumps: onJumps[b] }));
+        outcomes.push({
+          ...combineReplay(meta, blocks, performance.now() - started),
+          workers: apis.length,
+        });
+      }
+      return outcomes;
+    },
+  );
+  return run;
+}
+
+let tracer: Remote<ReplayApi> | null = null;
+
+/** One path of a replay, step by step (rebuilds nothing when the same request ran last). */
+export function tracePathInWorker(request: ReplayRequest, path: number) {
+  tracer ??= wrap<ReplayApi>(makeWorker());
+  return tracer.trace(request, path);
+}

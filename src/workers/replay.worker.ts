@@ -1,0 +1,36 @@
+import { expose, transfer } from 'comlink';
+import { planReplay, replayBlock, tracePath, type ReplayPlan } from '../engine/replay';
+import type { ReplayApi, ReplayBlocksDone } from './replay-api';
+
+// the plan (hedge table included) of the last request, reused while its blocks come in
+let last: { key: string; plan: ReplayPlan } | null = null;
+const planFor = (request: Parameters<ReplayApi['trace']>[0]) => {
+  const key = JSON.stringify(request);
+  if (last?.key !== key) last = { key, plan: planReplay(request) };
+  return last.plan;
+};
+
+const api: ReplayApi = {
+  runBlocks(request, blocks, onBlock) {
+    const plan = planFor(request);
+    const done: ReplayBlocksDone = {
+      pnl: [],
+      onJumps: [],
+      premium: plan.premium,
+      steps: plan.steps,
+    };
+    for (const b of blocks) {
+      const out = replayBlock(plan, b);
+      done.pnl.push(out.pnl);
+      done.onJumps.push(out.onJumps);
+      void onBlock();
+    }
+    const buffers = [...done.pnl, ...done.onJumps].map((a) => a.buffer as ArrayBuffer);
+    return transfer(done, buffers);
+  },
+  trace(request, path) {
+    return tracePath(planFor(request), path);
+  },
+};
+
+expose(api);
