@@ -167,4 +167,3 @@ describe('hedge replay', () => {
     for (const j of trace.jumps) expect(trace.times).toContainEqual(j.time);
   }, 60000);
 });
-
