@@ -5,7 +5,6 @@
  * way (time × (s.e./0.01)²). Then the same simulation split across 2 worker threads, which must
  * give bit-identical numbers.
  */
-import { Worker } from 'node:worker_threads';
 import {
   blockCount,
   combineBlocks,
@@ -15,6 +14,7 @@ import {
 } from '../../src/engine/simulate';
 import type { Market, Model } from '../../src/engine/types';
 import { quantlibMcBlackScholesCall } from '../support/quantlib';
+import { blocksInThreads } from './threads';
 import { fmt } from './timing';
 
 const market: Market = { spot: 100, rate: 0.02, dividendYield: 0.01 };
@@ -39,30 +39,14 @@ const settings: SimulationSettings = {
   options: [{ type: 'call', strike: 100, expiry: 1 }],
 };
 
-function runInThreads(
-  workers: number,
-): Promise<{ ms: number; result: ReturnType<typeof combineBlocks> }> {
-  const total = blockCount(settings);
-  const started = performance.now();
-
-  const jobs = Array.from({ length: workers }, (_, w) => {
-    const blocks = Array.from({ length: total }, (_, b) => b).filter((b) => b % workers === w);
-    return new Promise<[number, BlockSums][]>((resolve, reject) => {
-      const t = new Worker(new URL('./mc-thread.mjs', import.meta.url), {
-        workerData: { blocks, market, model, settings },
-      });
-      t.once('message', (m) => {
-        resolve(m);
-        void t.terminate();
-      });
-      t.once('error', reject);
-    });
-  });
-  return Promise.all(jobs).then((parts) => {
-    const blocks: BlockSums[] = new Array(total);
-    for (const part of parts) for (const [b, s] of part) blocks[b] = s;
-    return { ms: performance.now() - started, result: combineBlocks(market, settings, blocks, 0) };
-  });
+async function runInThreads(workers: number) {
+  const { ms, blocks } = await blocksInThreads<BlockSums>(
+    new URL('./mc-thread.mjs', import.meta.url),
+    workers,
+    blockCount(settings),
+    { market, model, settings },
+  );
+  return { ms, result: combineBlocks(market, settings, blocks, 0) };
 }
 
 export async function benchMonteCarlo(): Promise<Record<string, string>[]> {

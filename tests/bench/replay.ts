@@ -2,11 +2,12 @@
  * Benchmark: 10,000 paths, daily rebalancing over one month, a two-leg position hedged with the
  * model's delta (table included) and with Black-Scholes delta on the same paths, one core.
  */
-import { replay } from '../../src/engine/replay';
+import { blockCountFor, combineReplay, replay, type ReplayRequest } from '../../src/engine/replay';
+import { blocksInThreads } from './threads';
 import type { Model } from '../../src/engine/types';
 import { fmt } from './timing';
 
-export function benchReplay(): Record<string, string>[] {
+export async function benchReplay(): Promise<Record<string, string>[]> {
   const market = { spot: 100, rate: 0.02, dividendYield: 0.01 };
   const model: Model = {
     kind: 'bates',
@@ -23,18 +24,30 @@ export function benchReplay(): Record<string, string>[] {
     { type: 'put' as const, strike: 95, expiry: 30 / 365, quantity: -10 },
     { type: 'call' as const, strike: 105, expiry: 30 / 365, quantity: 5 },
   ];
-  const run = (method: 'bs-delta' | 'model-delta') =>
-    replay({
-      market,
-      model,
-      position,
-      hedge: { method, rebalancesPerDay: 1, costBps: 2 },
-      paths: 10000,
-      seed: 11,
-    });
+  const request = (method: 'bs-delta' | 'model-delta'): ReplayRequest => ({
+    market,
+    model,
+    position,
+    hedge: { method, rebalancesPerDay: 1, costBps: 2 },
+    paths: 10000,
+    seed: 11,
+  });
+  const run = (method: 'bs-delta' | 'model-delta') => replay(request(method));
   run('bs-delta'); // warm-up
   const bs = run('bs-delta');
   const md = run('model-delta');
+  const inThreads = async (workers: number) => {
+    const { ms, blocks } = await blocksInThreads<{ pnl: Float64Array; onJumps: Float64Array }>(
+      new URL('./replay-thread.mjs', import.meta.url),
+      workers,
+      blockCountFor(10000),
+      { request: request('model-delta') },
+    );
+    const plan = { request: request('model-delta'), steps: md.steps, premium: md.premium };
+    return { ms, digest: combineReplay(plan, blocks, 0).digest };
+  };
+  const one = await inThreads(1);
+  const two = await inThreads(2);
   return [
     {
       case: 'model delta (table built in the run)',
@@ -52,6 +65,13 @@ export function benchReplay(): Record<string, string>[] {
       case: 'ratio model / Black-Scholes time',
       ms: `${fmt(md.elapsedMs / bs.elapsedMs, 3)}×`,
       'P&L s.d.': '',
+      ES99: '',
+    },
+    {
+      case: 'model delta, 1 / 2 worker threads (wall clock, incl. start-up and table)',
+      ms: `${fmt(one.ms, 4)} / ${fmt(two.ms, 4)}`,
+      'P&L s.d.':
+        two.digest === md.digest && one.digest === md.digest ? 'bit-identical' : 'NOT identical',
       ES99: '',
     },
   ];

@@ -24,4 +24,4 @@ console.log('\nMonte Carlo, Bates with QE variance and jumps.');
 console.table(await benchMonteCarlo());
 
 console.log('\nHedge replay: 10,000 paths, daily rebalancing over one month, two legs, one core.');
-console.table(benchReplay());
+console.table(await benchReplay());

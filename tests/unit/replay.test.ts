@@ -13,6 +13,7 @@ import {
   type ReplayRequest,
 } from '../../src/engine/replay';
 import { discountFactor } from '../../src/engine/market';
+import { checkReplay, summaryOf, type SavedReplayRun } from '../../src/engine/replay-runs';
 import type { Model } from '../../src/engine/types';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -165,5 +166,39 @@ describe('hedge replay', () => {
     // the worst path of a short put under negative mean jumps has a jump (common practice)
     expect(trace.jumps.length).toBeGreaterThan(0);
     for (const j of trace.jumps) expect(trace.times).toContainEqual(j.time);
+  }, 60000);
+
+  it('a saved run that is recomputed says "matches"; a changed engine version or changed bits is reported, not hidden', () => {
+    const request: ReplayRequest = {
+      market,
+      model: bates,
+      position: [{ type: 'put', strike: 97, expiry: 10 / 365, quantity: -1 }],
+      hedge: { method: 'bs-delta', rebalancesPerDay: 2, costBps: 0 },
+      paths: 3000,
+      seed: 5,
+    };
+    const saved: SavedReplayRun = {
+      kind: 'replay',
+      id: 'run-1',
+      savedAt: '2026-12-02T00:00:00Z',
+      engineVersion: '0.1.0',
+      request,
+      seed: 5,
+      summaries: [summaryOf(replay(request))],
+    };
+    // through JSON, as it is stored in the scenario
+    const stored = JSON.parse(JSON.stringify(saved)) as SavedReplayRun;
+    const again = [summaryOf(replay(stored.request))];
+    expect(checkReplay(stored, again, '0.1.0')).toMatchObject({ matches: true });
+    const nudged = [
+      summaryOf(replay({ ...stored.request, hedge: { ...request.hedge, costBps: 1e-9 } })),
+    ];
+    const newer = checkReplay(stored, nudged, '0.2.0');
+    expect(newer.matches).toBe(false);
+    expect(newer.message).toContain('saved with engine 0.1.0 and this is engine 0.2.0');
+    const same = checkReplay(stored, nudged, '0.1.0');
+    expect(same.matches).toBe(false);
+    expect(same.message).toContain('the engine version is the same');
+    expect(same.message).toContain(saved.summaries[0].digest);
   }, 60000);
 });

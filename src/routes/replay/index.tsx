@@ -1,0 +1,245 @@
+import { useQuery } from '@tanstack/react-query';
+import { useEffect, useState } from 'react';
+import { CautionNote } from '../../components/CautionNote';
+import { ProgressBar } from '../../components/ProgressBar';
+import { ScenarioSelect } from '../../components/ScenarioSelect';
+import { DrillDownPanel } from '../../components/replay/DrillDownPanel';
+import { HedgeFields } from '../../components/replay/HedgeFields';
+import { LegsTable } from '../../components/replay/LegsTable';
+import { ReplayCharts } from '../../components/replay/ReplayCharts';
+import { ReplayStats } from '../../components/replay/ReplayStats';
+import { SavedRuns } from '../../components/replay/SavedRuns';
+import { formatNumber } from '../../components/format';
+import {
+  checkReplay,
+  runRequests,
+  savedReplayRuns,
+  summaryOf,
+  type ReplayCheck,
+  type SavedReplayRun,
+} from '../../engine/replay-runs';
+import { applyStress } from '../../engine/stress';
+import { ENGINE_VERSION } from '../../engine/version';
+import { localScenariosQuery, useSaveScenario } from '../../store/hooks';
+import { formFromRun, loadForm, storeForm } from './form-storage';
+import { defaultReplayForm, requestsFromForm, type ReplayForm } from './replay-form';
+import { useReplayRun } from './use-replay-run';
+
+const newSeed = () => Math.floor(Math.random() * 2 ** 31);
+
+export function ReplayPage() {
+  const scenarios = useQuery(localScenariosQuery);
+  const save = useSaveScenario();
+  const [sourceId, setSourceId] = useState<string | null>(null);
+  const [form, setForm] = useState<ReplayForm | null>(loadForm);
+  const [legIssues, setLegIssues] = useState<Record<number, string>>({});
+  const [formError, setFormError] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
+  const [check, setCheck] = useState<{ id: string; result: ReplayCheck } | null>(null);
+  const { start, cancel, progress, view, error } = useReplayRun();
+  const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
+  useEffect(() => {
+    if (form) storeForm(form);
+  }, [form]);
+  if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
+  if (!source)
+    return (
+      <p className="text-muted">Open Sketch once so that this device has a scenario to replay.</p>
+    );
+  const stressed = applyStress(
+    source.document.market,
+    source.document.model,
+    source.document.stress ?? {},
+  );
+  const f = form ?? defaultReplayForm(stressed.market.spot);
+  const update = (next: ReplayForm) => setForm(next);
+  const runs = savedReplayRuns(source.document.runs);
+
+  const go = () => {
+    if (stressed.issues.length > 0)
+      return setFormError(
+        `the scenario's stress is out of range: ${stressed.issues[0].path} ${stressed.issues[0].message}`,
+      );
+    const checked = requestsFromForm(f, stressed.market, stressed.model);
+    setSaved(false);
+    setCheck(null);
+    if (!checked.ok) {
+      setLegIssues(checked.legIssues);
+      setFormError(checked.error);
+      return;
+    }
+    setLegIssues({});
+    setFormError(null);
+    void start(checked.requests);
+  };
+  const saveRun = async () => {
+    if (!view) return;
+    const entry: SavedReplayRun = {
+      kind: 'replay',
+      id: crypto.randomUUID(),
+      savedAt: new Date().toISOString(),
+      engineVersion: ENGINE_VERSION,
+      request: view.requests[0],
+      ...(view.requests[1] ? { compare: view.requests[1].hedge } : {}),
+      seed: view.requests[0].seed,
+      summaries: view.results.map(summaryOf),
+    };
+    await save.mutateAsync({
+      ...source.document,
+      runs: [...(source.document.runs ?? []), entry as unknown as Record<string, unknown>],
+    });
+    setSaved(true);
+  };
+  const replaySaved = async (run: SavedReplayRun) => {
+    setCheck(null);
+    const fresh = await start(runRequests(run), true);
+    if (fresh)
+      setCheck({
+        id: run.id,
+        result: checkReplay(run, fresh.results.map(summaryOf), ENGINE_VERSION),
+      });
+  };
+  const field = (key: 'paths' | 'seed', label: string) => (
+    <label className="grid grid-cols-[1fr_9rem] items-center gap-2 text-sm">
+      <span>{label}</span>
+      <input
+        aria-label={label}
+        value={f[key]}
+        onChange={(e) => update({ ...f, [key]: e.target.value })}
+        className="tabular rounded border border-rule bg-panel px-2 py-1 text-right"
+      />
+    </label>
+  );
+
+  return (
+    <div className="space-y-5">
+      <h1 className="text-2xl font-semibold">Replay</h1>
+      <CautionNote />
+      <div className="grid gap-6 lg:grid-cols-[26rem_1fr]">
+        <aside className="min-w-0 space-y-4">
+          <ScenarioSelect
+            label="Scenario (with its stress)"
+            scenarios={scenarios.data!}
+            value={source.id}
+            onChange={setSourceId}
+          />
+          <p className="text-xs text-muted">
+            Spot {formatNumber(stressed.market.spot, 2)}; the legs are bought or sold at the
+            model&apos;s price and hedged in the underlying until the last one expires.
+          </p>
+          <LegsTable
+            rows={f.legs}
+            onChange={(legs) => update({ ...f, legs })}
+            issues={legIssues}
+            spot={stressed.market.spot}
+          />
+          <HedgeFields
+            label="Hedge"
+            value={f.hedge}
+            onChange={(hedge) => update({ ...f, hedge })}
+          />
+          <label className="flex items-center gap-2 text-sm">
+            <input
+              type="checkbox"
+              checked={f.compareOn}
+              onChange={(e) => update({ ...f, compareOn: e.target.checked })}
+            />
+            compare with a second hedge on the same paths
+          </label>
+          {f.compareOn && (
+            <HedgeFields
+              label="Compared hedge"
+              value={f.compare}
+              onChange={(compare) => update({ ...f, compare })}
+            />
+          )}
+          {field('paths', 'Paths')}
+          <div className="flex items-end gap-2">
+            <div className="flex-1">{field('seed', 'Seed')}</div>
+            <button
+              type="button"
+              className="text-sm text-teal"
+              onClick={() => update({ ...f, seed: String(newSeed()) })}
+            >
+              New seed
+            </button>
+          </div>
+          <div className="flex gap-3">
+            <button
+              type="button"
+              onClick={go}
+              disabled={progress !== null}
+              className="rounded bg-teal px-4 py-1.5 font-semibold text-paper disabled:opacity-50"
+            >
+              Replay hedge
+            </button>
+            <button
+              type="button"
+              className="text-sm text-muted"
+              onClick={() => update(defaultReplayForm(stressed.market.spot))}
+            >
+              Reset form
+            </button>
+          </div>
+          {progress !== null && (
+            <ProgressBar fraction={progress} onCancel={cancel} testId="replay-progress" />
+          )}
+          {(formError || error) && (
+            <p role="alert" className="text-sm text-stressed">
+              {formError ?? error}
+            </p>
+          )}
+          <h2 className="pt-2 text-lg font-semibold">Saved runs</h2>
+          <SavedRuns
+            runs={runs}
+            busy={progress !== null}
+            check={check}
+            onOpen={(run) => update(formFromRun(run))}
+            onReplay={(run) => void replaySaved(run)}
+          />
+        </aside>
+        <section className="min-w-0 space-y-4">
+          {!view ? (
+            <p className="text-muted">
+              Build the position, choose the hedge and press Replay hedge. The same position, hedge,
+              paths and seed give the same P&amp;L to the last bit on any machine and with any
+              number of workers.
+            </p>
+          ) : (
+            <>
+              <p className="tabular text-sm" data-testid="replay-summary">
+                {view.results[0].paths.toLocaleString()} paths × {view.results[0].steps} rebalances,
+                seed {view.requests[0].seed} ·{' '}
+                {view.fromCache
+                  ? 'opened from the cache'
+                  : `${view.results.reduce((a, r) => a + r.elapsedMs, 0).toFixed(0)} ms on ${view.workers} worker${view.workers > 1 ? 's' : ''}`}{' '}
+                · position bought for {formatNumber(view.results[0].premium, 4)} (negative: premium
+                received) · P&amp;L discounted to today
+              </p>
+              <ReplayStats requests={view.requests} results={view.results} />
+              <div className="flex items-center gap-3">
+                <button
+                  type="button"
+                  onClick={() => void saveRun()}
+                  className="rounded border border-teal px-3 py-1 text-sm text-teal"
+                >
+                  Save run into the scenario
+                </button>
+                {saved && <span className="text-sm text-teal">Saved with its seed.</span>}
+              </div>
+              <ReplayCharts
+                requests={view.requests}
+                results={view.results}
+                histograms={view.histograms}
+              />
+              <DrillDownPanel
+                requests={view.requests}
+                worstPaths={view.results.map((r) => r.worstPath)}
+              />
+            </>
+          )}
+        </section>
+      </div>
+    </div>
+  );
+}

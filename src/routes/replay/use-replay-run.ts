@@ -1,0 +1,78 @@
+/**
+ * Runs hedge replays on the worker pool for the Replay page: from the cache when the same
+ * requests ran before, never from the cache when a saved run is being checked.
+ */
+import { useCallback, useRef, useState } from 'react';
+import type { ReplayRequest, ReplayResult } from '../../engine/replay';
+import { pnlHistogram, range, type PnlHistogram } from '../../engine/replay-summary';
+import { appDb } from '../../store/db';
+import { cacheKey, getCached, putCached } from '../../store/result-cache';
+import { CancelledError } from '../../workers/fit-client';
+import type { PoolRun } from '../../workers/block-pool';
+import { runReplays, type ReplayOutcome } from '../../workers/replay-pool';
+
+export interface ReplayView {
+  requests: ReplayRequest[];
+  results: ReplayResult[];
+  /** one histogram per hedge, on shared bins */
+  histograms: PnlHistogram[];
+  fromCache: boolean;
+  workers: number;
+}
+
+const BINS = 60;
+
+export function useReplayRun() {
+  const [progress, setProgress] = useState<number | null>(null);
+  const [view, setView] = useState<ReplayView | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const current = useRef<PoolRun<ReplayOutcome[]> | null>(null);
+
+  const start = useCallback(
+    async (requests: ReplayRequest[], fresh = false): Promise<ReplayView | null> => {
+      setError(null);
+      const key = await cacheKey('replay', requests);
+      if (!fresh) {
+        const cached = await getCached<ReplayView>(appDb(), key);
+        if (cached) {
+          const v = { ...cached, fromCache: true };
+          setView(v);
+          return v;
+        }
+      }
+      setProgress(0);
+      const job = runReplays(requests, setProgress);
+      current.current = job;
+      try {
+        const outcomes = await job.result;
+        const ranges = outcomes.map((o) => range(o.pnlByPath));
+        const lo = Math.min(...ranges.map((r) => r[0]));
+        const hi = Math.max(...ranges.map((r) => r[1]));
+        const result: ReplayView = {
+          requests,
+          results: outcomes.map(({ pnlByPath: _p, workers: _w, ...r }) => r),
+          histograms: outcomes.map((o) => pnlHistogram(o.pnlByPath, lo, hi, BINS)),
+          fromCache: false,
+          workers: job.workers,
+        };
+        setView(result);
+        await putCached(appDb(), key, 'replay', result, JSON.stringify(result).length);
+        return result;
+      } catch (e) {
+        setError(
+          e instanceof CancelledError
+            ? 'Cancelled: nothing was kept.'
+            : `The replay failed: ${(e as Error).message}`,
+        );
+        return null;
+      } finally {
+        setProgress(null);
+        current.current = null;
+      }
+    },
+    [],
+  );
+
+  const cancel = useCallback(() => current.current?.cancel(), []);
+  return { start, cancel, progress, view, error };
+}
