@@ -1,13 +1,21 @@
 /** The Express application: `/api` routes and, when built, the PWA from `dist/`. */
 import cookieParser from 'cookie-parser';
+import cors from 'cors';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { Knex } from 'knex';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { errorHandler, HttpError } from './errors';
-import { authRouter } from './routes/auth';
+import { mailboxPage } from './mail/mailbox-page';
+import { requireUser } from './auth/session';
+import type { Mailer } from './mail/mailer';
+import { authRouter, setSessionCookie } from './routes/auth';
+import { desksRouter } from './routes/desks';
 import { healthRouter } from './routes/health';
+import { passwordRouter } from './routes/password';
+import { setsRouter } from './routes/sets';
+import { syncRouter } from './routes/sync';
 
 export interface AppOptions {
   db: Knex;
@@ -16,6 +24,12 @@ export interface AppOptions {
   staticDir?: string;
   secureCookies?: boolean;
   log?: (line: string) => void;
+  /** invite and reset mail */
+  mailer: Mailer;
+  /** the public URL invite and reset links are built from */
+  appUrl: string;
+  /** the fake SMTP server's mailbox, shown at /dev/mailbox when set (development only) */
+  mailboxDir?: string;
 }
 
 export function createApp(opts: AppOptions): Express {
@@ -58,14 +72,35 @@ export function createApp(opts: AppOptions): Express {
   });
 
   const api = express.Router();
+  const appOrigin = new URL(opts.appUrl).origin;
+  // CORS only for the app's own origin; a cross-site browser request gets no CORS headers
+  api.use(cors({ origin: [appOrigin], credentials: true }));
   api.use(express.json({ limit: '1mb' }));
   api.use(cookieParser());
+  api.use(refuseForeignOrigins(appOrigin));
+  const auth = requireUser(opts.db, opts.jwtSecret);
+  const secure = opts.secureCookies ?? false;
   api.use(healthRouter(opts.db));
-  api.use(authRouter(opts.db, opts.jwtSecret, opts.secureCookies ?? false));
+  api.use(authRouter(opts.db, opts.jwtSecret, secure));
+  api.use(
+    passwordRouter(
+      opts.db,
+      opts.jwtSecret,
+      auth,
+      opts.mailer,
+      opts.appUrl,
+      (res, token) => setSessionCookie(res, token, secure),
+      log,
+    ),
+  );
+  api.use(desksRouter(opts.db, auth, opts.mailer, opts.appUrl));
+  api.use(setsRouter(opts.db, auth));
+  api.use(syncRouter(opts.db, auth));
   api.use((req, _res, next) =>
     next(new HttpError(404, 'not-found', `no route ${req.method} /api${req.path}`)),
   );
   app.use('/api', api);
+  if (opts.mailboxDir) app.get('/dev/mailbox', mailboxPage(opts.mailboxDir));
 
   if (opts.staticDir && existsSync(join(opts.staticDir, 'index.html'))) {
     const dir = opts.staticDir;
@@ -88,4 +123,20 @@ export function createApp(opts: AppOptions): Express {
   }
   app.use(errorHandler(log));
   return app;
+}
+
+/**
+ * CSRF defence in depth beside the SameSite=Strict cookie: a state-changing request that
+ * names a foreign Origin is refused. Same-origin requests (Origin equal to the app's or to
+ * this server's own host) and scripts without an Origin pass.
+ */
+function refuseForeignOrigins(appOrigin: string): express.RequestHandler {
+  return (req, _res, next) => {
+    const origin = req.get('origin');
+    if (!origin || req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS')
+      return next();
+    const own = `${req.protocol}://${req.get('host')}`;
+    if (origin === appOrigin || origin === own) return next();
+    next(new HttpError(403, 'foreign-origin', 'requests from other sites are refused'));
+  };
 }

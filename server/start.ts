@@ -11,6 +11,7 @@ import { EmbeddedPostgres, portIsFree, SetupError } from './bootstrap/postgres';
 import { loadConfig, readPort } from './config';
 import { createDb, migrate, seed } from './db';
 import { DEMO_DESK, DEMO_USERS } from './demo';
+import { setUpMail, type MailSetup } from './mail/setup';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 
@@ -38,6 +39,7 @@ async function main() {
   }
   const db = createDb(url);
   let server: Server | undefined;
+  let mail: MailSetup | undefined;
   let stopping = false;
   const stop = async (code: number) => {
     if (stopping) return;
@@ -45,6 +47,7 @@ async function main() {
     console.log('\nStopping Saltation…');
     await new Promise<void>((resolve) => (server ? server.close(() => resolve()) : resolve()));
     await db.destroy().catch(() => undefined);
+    await mail?.close();
     pg?.stop();
     process.exit(code);
   };
@@ -58,7 +61,15 @@ async function main() {
       console.log('Building the client…');
       await build({ root, logLevel: 'warn' });
     }
-    const app = createApp({ db, jwtSecret: config.jwtSecret, staticDir: `${root}dist` });
+    mail = await setUpMail(config);
+    const app = createApp({
+      db,
+      jwtSecret: config.jwtSecret,
+      staticDir: `${root}dist`,
+      mailer: mail.mailer,
+      appUrl: config.appUrl,
+      mailboxDir: mail.mailboxDir,
+    });
     server = app.listen(config.port, '127.0.0.1');
     await new Promise<void>((resolve, reject) => {
       server!.once('listening', () => resolve());
@@ -73,6 +84,8 @@ async function main() {
   console.log(`Demo desk "${DEMO_DESK}" sign-ins:`);
   for (const u of DEMO_USERS)
     console.log(`  ${u.role.padEnd(8)} ${u.email.padEnd(24)} ${u.password}`);
+  if (mail?.mailboxDir)
+    console.log(`Invite and reset e-mails are kept locally: ${config.appUrl}/dev/mailbox`);
   console.log('Press Ctrl-C to stop.');
 }
 

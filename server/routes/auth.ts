@@ -16,7 +16,7 @@ const registerBody = z.object({
 });
 const signinBody = z.object({ email, password: z.string().min(1).max(200) });
 
-function setSessionCookie(res: Response, token: string, secure: boolean) {
+export function setSessionCookie(res: Response, token: string, secure: boolean) {
   res.cookie(SESSION_COOKIE, token, {
     httpOnly: true,
     sameSite: 'strict',

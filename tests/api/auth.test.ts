@@ -1,19 +1,14 @@
-import type { Knex } from 'knex';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_USERS } from '../../server/demo';
-import { testDb, uniqueEmail } from '../support/database';
+import { apiFixture } from '../support/api';
+import { uniqueEmail } from '../support/database';
 
-let db: Knex;
-let app: ReturnType<typeof createApp>;
+const api = apiFixture();
+let app: ReturnType<typeof api.app>;
 
 beforeAll(() => {
-  db = testDb();
-  app = createApp({ db, jwtSecret: 'api-test-secret', log: () => undefined });
-});
-afterAll(async () => {
-  await db.destroy();
+  app = api.app();
 });
 
 describe('health', () => {

@@ -7,12 +7,14 @@ import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../server/app';
 import { freePort } from '../../server/bootstrap/postgres';
 import { testDb } from '../support/database';
+import { testMail, type TestMail } from '../support/mail';
 import { CHROMIUM_ARGS, ensureChromium } from './chromium';
 
 const dist = fileURLToPath(new URL('../../dist', import.meta.url));
 
 export interface RunningApp {
   url: string;
+  mail: TestMail;
   close: () => Promise<void>;
 }
 
@@ -20,17 +22,28 @@ export async function startApp(): Promise<RunningApp> {
   if (!existsSync(`${dist}/index.html`))
     throw new Error('Build the client first (npm test does): dist/ is missing');
   const db = testDb();
-  const app = createApp({ db, jwtSecret: 'e2e-secret', staticDir: dist, log: () => undefined });
+  const mail = await testMail();
   const port = await freePort();
+  const url = `http://127.0.0.1:${port}`;
+  const app = createApp({
+    db,
+    jwtSecret: 'e2e-secret',
+    staticDir: dist,
+    log: () => undefined,
+    mailer: mail.mailer,
+    appUrl: url,
+  });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(port, '127.0.0.1', () => resolve(s));
   });
   return {
-    url: `http://127.0.0.1:${port}`,
+    url,
+    mail,
     close: async () => {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await db.destroy();
+      await mail.close();
     },
   };
 }

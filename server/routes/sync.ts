@@ -1,0 +1,60 @@
+/** Sync: push mutations, pull changes since a cursor, a scenario's revision history. */
+import { Router } from 'express';
+import type { Knex } from 'knex';
+import { z } from 'zod';
+import { isUuid, setStanding } from '../access';
+import { notFound, parseOr400 } from '../errors';
+import { applyMutation, mutationSchema, type MutationResult } from '../sync/push';
+import { pull } from '../sync/pull';
+import type { RequestHandler } from 'express';
+
+const pushBody = z.object({ mutations: z.array(mutationSchema).min(1).max(200) });
+const pullQuery = z.object({ since: z.string().max(4000).optional() });
+
+export function syncRouter(db: Knex, auth: RequestHandler): Router {
+  const r = Router();
+  r.post('/sync/push', auth, async (req, res) => {
+    const body = parseOr400(pushBody, req.body, 'body');
+    const results: MutationResult[] = [];
+    // in order: a later mutation of the same scenario builds on the earlier one
+    for (const m of body.mutations) results.push(await applyMutation(db, req.user!.id, m));
+    res.json({ results });
+  });
+
+  r.get('/sync/pull', auth, async (req, res) => {
+    const q = parseOr400(pullQuery, req.query, 'query');
+    res.json(await pull(db, req.user!.id, q.since));
+  });
+
+  r.get('/scenarios/:id/revisions', auth, async (req, res) => {
+    const id = String(req.params.id);
+    if (!isUuid(id)) throw notFound('no such scenario');
+    const row = await db('scenarios').where({ id }).first('set_id');
+    // a scenario in a set the caller cannot see answers as if it did not exist
+    if (!row || !(await setStanding(db, req.user!.id, row.set_id)))
+      throw notFound('no such scenario');
+    const revisions = await db('scenario_revisions as r')
+      .leftJoin('users as u', 'u.id', 'r.author_id')
+      .where('r.scenario_id', id)
+      .orderBy('r.revision', 'desc')
+      .select(
+        'r.revision',
+        'r.document',
+        'r.deleted',
+        'r.created_at',
+        'u.name as author',
+        'u.id as author_id',
+      );
+    res.json({
+      revisions: revisions.map((v) => ({
+        revision: v.revision,
+        document: v.document,
+        deleted: v.deleted,
+        author: v.author,
+        authorId: v.author_id,
+        createdAt: new Date(v.created_at).toISOString(),
+      })),
+    });
+  });
+  return r;
+}

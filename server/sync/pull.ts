@@ -1,0 +1,141 @@
+/**
+ * Pull: every change since the caller's cursor in each space they can see, tombstones
+ * included, and the scenarios of spaces they can no longer see (to be removed locally).
+ * The cursor is opaque to clients: base64url JSON of {space: last version seen}.
+ */
+import type { Knex } from 'knex';
+import { canManage, canWrite, visibleSpaces, type Standing } from '../access';
+import { HttpError } from '../errors';
+
+export type Cursor = Record<string, number>;
+
+export function decodeCursor(since: string | undefined): Cursor {
+  if (!since || since === '0') return {};
+  try {
+    const parsed = JSON.parse(Buffer.from(since, 'base64url').toString('utf8')) as unknown;
+    if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed)) throw new Error();
+    const out: Cursor = {};
+    for (const [k, v] of Object.entries(parsed)) {
+      if (!/^(desk|user):[0-9a-f-]{36}$/.test(k) || !Number.isSafeInteger(v) || (v as number) < 0)
+        throw new Error();
+      out[k] = v as number;
+    }
+    return out;
+  } catch {
+    throw new HttpError(
+      400,
+      'invalid-input',
+      'query.since: not a cursor this service gave out',
+      'query.since',
+    );
+  }
+}
+
+export const encodeCursor = (c: Cursor) => Buffer.from(JSON.stringify(c)).toString('base64url');
+
+export interface PullAnswer {
+  cursor: string;
+  changes: {
+    scenarioId: string;
+    setId: string;
+    revision: number;
+    document: unknown;
+    updatedBy: string | null;
+    updatedAt: string;
+  }[];
+  sets: {
+    id: string;
+    name: string;
+    deskId: string | null;
+    deleted: boolean;
+    canWrite: boolean;
+    canManage: boolean;
+  }[];
+  removed: string[];
+  removedSets: string[];
+  more: boolean;
+}
+
+export async function pull(
+  db: Knex,
+  userId: string,
+  since: string | undefined,
+  limit = 1000,
+): Promise<PullAnswer> {
+  const cursor = decodeCursor(since);
+  const spaces = await visibleSpaces(db, userId);
+  // in the order the query sorts them (byte order, as collate "C")
+  const names = [...spaces.keys()].sort();
+  const after = names.map((s) => cursor[s] ?? 0);
+  const gone = Object.keys(cursor).filter((s) => !spaces.has(s));
+  const window = db.raw('(select unnest(?::text[]) as space, unnest(?::bigint[]) as after) as c', [
+    names,
+    after,
+  ]);
+  const [rows, setRows, removed, removedSets] = await Promise.all([
+    db('scenarios as s')
+      .join(window, function () {
+        this.on('s.space', '=', 'c.space').andOn('s.change_version', '>', 'c.after');
+      })
+      .leftJoin('users as u', 'u.id', 's.updated_by')
+      .select(
+        's.id',
+        's.set_id',
+        's.space',
+        's.revision',
+        's.document',
+        's.deleted',
+        's.change_version',
+        's.updated_at',
+        'u.name as updated_by',
+      )
+      .orderByRaw('s.space collate "C", s.change_version')
+      .limit(limit + 1),
+    db('scenario_sets as t')
+      .join(window, function () {
+        this.on('t.space', '=', 'c.space').andOn('t.change_version', '>', 'c.after');
+      })
+      .select('t.id', 't.name', 't.desk_id', 't.space', 't.deleted', 't.change_version'),
+    gone.length ? db('scenarios').whereIn('space', gone).pluck('id') : Promise.resolve([]),
+    gone.length ? db('scenario_sets').whereIn('space', gone).pluck('id') : Promise.resolve([]),
+  ]);
+  const more = rows.length > limit;
+  const sent = more ? rows.slice(0, limit) : rows;
+  const next: Cursor = {};
+  names.forEach((s, i) => (next[s] = after[i]));
+  for (const t of setRows) next[t.space] = Math.max(next[t.space], Number(t.change_version));
+  for (const r of sent) next[r.space] = Math.max(next[r.space], Number(r.change_version));
+  if (more) {
+    // the space the limit cut through resumes after its last scenario sent
+    const last = sent[sent.length - 1];
+    next[last.space] = Number(last.change_version);
+    const cut = names.indexOf(last.space);
+    // spaces after the cut were not reached: keep their old positions
+    names.slice(cut + 1).forEach((s) => (next[s] = cursor[s] ?? 0));
+  }
+  return {
+    cursor: encodeCursor(next),
+    changes: sent.map((r) => ({
+      scenarioId: r.id,
+      setId: r.set_id,
+      revision: r.revision,
+      document: r.deleted ? null : r.document,
+      updatedBy: r.updated_by,
+      updatedAt: new Date(r.updated_at).toISOString(),
+    })),
+    sets: setRows.map((t) => {
+      const standing = spaces.get(t.space) as Standing;
+      return {
+        id: t.id,
+        name: t.name,
+        deskId: t.desk_id,
+        deleted: t.deleted,
+        canWrite: canWrite(standing),
+        canManage: canManage(standing),
+      };
+    }),
+    removed,
+    removedSets,
+    more,
+  };
+}
