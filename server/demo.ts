@@ -21,3 +21,35 @@ export const DEMO_USERS = [
     password: 'larkspur-analyst-1',
   },
 ] as const;
+
+/** The desk's shared scenario sets (fixed ids, so a re-seeded desk keeps them). */
+export const DEMO_SETS = [
+  {
+    name: 'LKX 40 weekly stresses',
+    scenarios: [
+      {
+        id: 'b7c1a8e0-3f52-4f4e-8d11-5a0f3c9e2b01',
+        name: 'LKX 40 — gap week',
+        notes: 'Shared by the desk lead: jumps three times as often, 5 points more negative.',
+        stress: { jumpIntensityScale: 3, jumpMeanShift: -0.05 },
+      },
+      {
+        id: 'b7c1a8e0-3f52-4f4e-8d11-5a0f3c9e2b02',
+        name: 'LKX 40 — quiet week',
+        notes: 'Shared by the desk lead: half the jump intensity, vol of vol 20 % lower.',
+        stress: { jumpIntensityScale: 0.5, volOfVolScale: 0.8 },
+      },
+    ],
+  },
+  {
+    name: 'LKX 40 open-gap ladder',
+    scenarios: [
+      {
+        id: 'b7c1a8e0-3f52-4f4e-8d11-5a0f3c9e2b03',
+        name: 'LKX 40 — 8 % open gap',
+        notes: 'Shared by the desk lead: spot 8 % lower at the open, vol of vol up half.',
+        stress: { spotShift: -0.08, volOfVolScale: 1.5 },
+      },
+    ],
+  },
+] as const;

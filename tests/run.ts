@@ -66,7 +66,8 @@ async function main(): Promise<number> {
     // `npm test -- --quick some.test.ts`: no type check or lint, vitest on the named files
     const args = process.argv.slice(2);
     const quick = args.includes('--quick');
-    const filters = args.filter((a) => a !== '--quick');
+    const noBuild = args.includes('--no-build');
+    const filters = args.filter((a) => a !== '--quick' && a !== '--no-build');
     const steps: [string, string, string[]][] = [
       ...(quick
         ? []
@@ -74,7 +75,13 @@ async function main(): Promise<number> {
             ['type check', bin('tsc'), ['--noEmit', '-p', 'tsconfig.json']],
             ['lint', bin('eslint'), ['.', '--max-warnings', '0']],
           ] as [string, string, string[]][])),
-      ['client build', bin('vite'), ['build', '--logLevel', 'warn']],
+      ...(noBuild
+        ? []
+        : ([['client build', bin('vite'), ['build', '--logLevel', 'warn']]] as [
+            string,
+            string,
+            string[],
+          ][])),
       ['tests (unit, api, e2e)', bin('vitest'), ['run', ...filters]],
     ];
     let failed = 0;

@@ -1,0 +1,8 @@
+/** Scenario documents for API tests: the default scenario under a given id and name. */
+import { newScenario } from '../../src/engine/scenario-defaults';
+import type { ScenarioDocument } from '../../src/engine/schema';
+
+export const scenarioDoc = (id: string, name = 'Test scenario', notes = ''): ScenarioDocument => ({
+  ...newScenario(id, name, '2026-12-02'),
+  notes,
+});
