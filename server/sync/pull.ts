@@ -5,6 +5,7 @@
  */
 import type { Knex } from 'knex';
 import { canManage, canWrite, visibleSpaces, type Standing } from '../access';
+import type { PullAnswer } from '../../src/sync/protocol';
 import { HttpError } from '../errors';
 
 export type Cursor = Record<string, number>;
@@ -32,29 +33,6 @@ export function decodeCursor(since: string | undefined): Cursor {
 }
 
 export const encodeCursor = (c: Cursor) => Buffer.from(JSON.stringify(c)).toString('base64url');
-
-export interface PullAnswer {
-  cursor: string;
-  changes: {
-    scenarioId: string;
-    setId: string;
-    revision: number;
-    document: unknown;
-    updatedBy: string | null;
-    updatedAt: string;
-  }[];
-  sets: {
-    id: string;
-    name: string;
-    deskId: string | null;
-    deleted: boolean;
-    canWrite: boolean;
-    canManage: boolean;
-  }[];
-  removed: string[];
-  removedSets: string[];
-  more: boolean;
-}
 
 export async function pull(
   db: Knex,

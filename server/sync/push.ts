@@ -7,7 +7,10 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
 import { parseScenario } from '../../src/engine/validate-model';
+import type { MutationResult } from '../../src/sync/protocol';
 import { canManage, canWrite, nextVersion, setStanding } from '../access';
+
+export type { MutationResult };
 
 export const mutationSchema = z
   .object({
@@ -23,15 +26,6 @@ export const mutationSchema = z
     path: ['document'],
   });
 export type Mutation = z.infer<typeof mutationSchema>;
-
-export interface MutationResult {
-  mutationId: string;
-  status: 'applied' | 'conflict' | 'denied' | 'invalid';
-  revision?: number;
-  /** on a conflict (and a denial where the caller may read): the server's copy */
-  current?: { revision: number; document: unknown; setId: string; deleted: boolean };
-  error?: string;
-}
 
 class Outcome extends Error {
   constructor(readonly result: MutationResult) {

@@ -6,6 +6,7 @@
 import Dexie, { type EntityTable } from 'dexie';
 import type { Position } from '../engine/positions';
 import type { ScenarioDocument } from '../engine/schema';
+import type { ServerCopy } from '../sync/protocol';
 
 export type SyncState = 'local' | 'synced' | 'pending' | 'conflict';
 
@@ -18,6 +19,12 @@ export interface StoredScenario {
   revision: number;
   syncState: SyncState;
   updatedAt: number;
+  /** when syncState is 'conflict': the server's copy the local edit collided with */
+  conflict?: ServerCopy & { at: number };
+  /** the service refused the last push of this scenario as invalid */
+  syncError?: string;
+  /** who wrote the server revision this copy is based on */
+  updatedBy?: string | null;
 }
 
 export interface OutboxEntry {
@@ -27,6 +34,22 @@ export interface OutboxEntry {
   baseRevision: number;
   deleted: boolean;
   createdAt: number;
+  /** the scenario's set when it was deleted (the row itself is gone) */
+  setId?: string | null;
+}
+
+/** A scenario set on the sync service that this device has pulled. */
+export interface RemoteSet {
+  id: string;
+  name: string;
+  deskId: string | null;
+  canWrite: boolean;
+  canManage: boolean;
+}
+
+export interface MetaEntry {
+  key: string;
+  value: string;
 }
 
 /** A named group of scenarios on this device, with the book of positions it revalues. */
@@ -54,6 +77,8 @@ export class SaltationDb extends Dexie {
   outbox!: EntityTable<OutboxEntry, 'seq'>;
   results!: EntityTable<CachedResult, 'key'>;
   sets!: EntityTable<LocalScenarioSet, 'id'>;
+  remoteSets!: EntityTable<RemoteSet, 'id'>;
+  meta!: EntityTable<MetaEntry, 'key'>;
 
   constructor(name = 'saltation') {
     super(name, { chromeTransactionDurability: 'strict' });
@@ -63,6 +88,7 @@ export class SaltationDb extends Dexie {
       results: 'key, kind, lastUsedAt',
     });
     this.version(2).stores({ sets: 'id, name, updatedAt' });
+    this.version(3).stores({ remoteSets: 'id, deskId', meta: 'key' });
   }
 }
 

@@ -23,15 +23,20 @@ export async function saveScenario(
   return db.transaction('rw', db.scenarios, db.outbox, async () => {
     const existing = await db.scenarios.get(document.id);
     const revision = existing?.revision ?? 0;
+    const inSet = existing ? existing.setId : setId;
     const stored: StoredScenario = {
+      ...existing,
       id: document.id,
       name: document.name,
       document: parsed.value,
-      setId: existing?.setId ?? setId,
+      setId: inSet,
       revision,
-      syncState: revision === 0 ? 'local' : 'pending',
+      // an edit made during a conflict stays in the conflict until the user resolves it
+      syncState:
+        existing?.syncState === 'conflict' ? 'conflict' : inSet === null ? 'local' : 'pending',
       updatedAt: Date.now(),
     };
+    delete stored.syncError;
     await db.scenarios.put(stored);
     await db.outbox.add({
       mutationId: crypto.randomUUID(),
@@ -39,6 +44,7 @@ export async function saveScenario(
       baseRevision: revision,
       deleted: false,
       createdAt: Date.now(),
+      setId: inSet,
     });
     return stored;
   });
@@ -64,9 +70,38 @@ export async function deleteScenario(db: SaltationDb, id: string): Promise<void>
         baseRevision: existing.revision,
         deleted: true,
         createdAt: Date.now(),
+        setId: existing.setId,
       });
     } else {
       await db.outbox.where('scenarioId').equals(id).delete();
     }
   });
+}
+
+/** Shares a device-only scenario by putting it in a set of the service (pushed on next sync). */
+export async function putInSet(db: SaltationDb, id: string, setId: string): Promise<void> {
+  await db.transaction('rw', db.scenarios, db.outbox, async () => {
+    const s = await db.scenarios.get(id);
+    if (!s) throw new Error('That scenario is not on this device.');
+    if (s.setId !== null) throw new Error('That scenario is in a set already; save a copy instead.');
+    await db.scenarios.put({ ...s, setId, syncState: 'pending', updatedAt: Date.now() });
+    await db.outbox.add({
+      mutationId: crypto.randomUUID(),
+      scenarioId: id,
+      baseRevision: 0,
+      deleted: false,
+      createdAt: Date.now(),
+      setId,
+    });
+  });
+}
+
+/** A copy under a new id, in the given set (null: this device only). */
+export async function saveCopy(
+  db: SaltationDb,
+  document: ScenarioDocument,
+  setId: string | null,
+  name = `${document.name} (copy)`,
+): Promise<StoredScenario> {
+  return saveScenario(db, { ...document, id: crypto.randomUUID(), name }, setId);
 }
