@@ -83,7 +83,8 @@ export async function putInSet(db: SaltationDb, id: string, setId: string): Prom
   await db.transaction('rw', db.scenarios, db.outbox, async () => {
     const s = await db.scenarios.get(id);
     if (!s) throw new Error('That scenario is not on this device.');
-    if (s.setId !== null) throw new Error('That scenario is in a set already; save a copy instead.');
+    if (s.setId !== null)
+      throw new Error('That scenario is in a set already; save a copy instead.');
     await db.scenarios.put({ ...s, setId, syncState: 'pending', updatedAt: Date.now() });
     await db.outbox.add({
       mutationId: crypto.randomUUID(),
