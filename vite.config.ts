@@ -33,7 +33,7 @@ export default defineConfig({
         // The Plotly chunk is over Workbox's 2 MiB default and must be there offline.
         maximumFileSizeToCacheInBytes: 8 * 1024 * 1024,
         navigateFallback: '/index.html',
-        navigateFallbackDenylist: [/^\/api\//],
+        navigateFallbackDenylist: [/^\/api\//, /^\/dev\//],
         cleanupOutdatedCaches: true,
       },
     }),

@@ -1,5 +1,8 @@
 import { createBrowserRouter } from 'react-router';
 import { AppShell } from './components/AppShell';
+import { AccountPage } from './routes/account/account';
+import { SignInPage } from './routes/account/sign-in';
+import { InvitePage, ResetPage } from './routes/account/token-pages';
 import { BookPage } from './routes/book';
 import { DeskPage } from './routes/desk';
 import { FitPage } from './routes/fit';
@@ -21,6 +24,10 @@ export const router = createBrowserRouter([
       { path: 'replay', element: <ReplayPage /> },
       { path: 'library', element: <LibraryPage /> },
       { path: 'desk', element: <DeskPage /> },
+      { path: 'signin', element: <SignInPage /> },
+      { path: 'account', element: <AccountPage /> },
+      { path: 'reset', element: <ResetPage /> },
+      { path: 'invite', element: <InvitePage /> },
       { path: '*', element: <NotFoundPage /> },
     ],
   },

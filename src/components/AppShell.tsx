@@ -3,6 +3,7 @@ import { useEffect } from 'react';
 import { NavLink, Outlet } from 'react-router';
 import { seedDemoScenariosOnce } from '../store/demo-seed';
 import { ServiceStatus } from './ServiceStatus';
+import { SessionBar } from './SessionBar';
 import { ThemeToggle } from './ThemeToggle';
 import { UpdatePrompt } from './UpdatePrompt';
 
@@ -50,6 +51,7 @@ export function AppShell() {
           </nav>
           <div className="ml-auto flex items-center gap-4">
             <ServiceStatus />
+            <SessionBar />
             <ThemeToggle />
           </div>
         </div>

@@ -1,6 +1,7 @@
 /** TanStack Query over the local store, with explicit invalidation after writes. */
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ScenarioDocument } from '../engine/schema';
+import { nudgeSync } from '../sync/sync-loop';
 import { appDb } from './db';
 import { deleteScenario, getScenario, listScenarios, saveScenario } from './scenarios';
 
@@ -24,6 +25,7 @@ export function useSaveScenario() {
     onSuccess: (stored) => {
       void qc.invalidateQueries({ queryKey: ['local', 'scenarios'] });
       qc.setQueryData(['local', 'scenario', stored.id], stored);
+      nudgeSync();
     },
   });
 }
@@ -32,6 +34,30 @@ export function useDeleteScenario() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (id: string) => deleteScenario(appDb(), id),
-    onSuccess: () => void qc.invalidateQueries({ queryKey: ['local'] }),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: ['local'] });
+      nudgeSync();
+    },
   });
 }
+
+/** How much of this device's work is not on the service yet. */
+export const unsyncedQuery = queryOptions({
+  queryKey: ['local', 'unsynced'],
+  queryFn: async () => {
+    const db = appDb();
+    const [pending, conflicts, scenarios] = await Promise.all([
+      db.scenarios.where('syncState').equals('pending').count(),
+      db.scenarios.where('syncState').equals('conflict').count(),
+      db.outbox.count(),
+    ]);
+    return { pending, conflicts, outbox: scenarios };
+  },
+  staleTime: Infinity,
+});
+
+export const remoteSetsQuery = queryOptions({
+  queryKey: ['local', 'remote-sets'],
+  queryFn: () => appDb().remoteSets.orderBy('id').toArray(),
+  staleTime: Infinity,
+});
