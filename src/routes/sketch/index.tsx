@@ -1,3 +1,4 @@
+import { ReadOnlyNote } from '../../components/sketch/ReadOnlyNote';
 import { useMemo, useState } from 'react';
 import { CautionNote } from '../../components/CautionNote';
 import { formatTenor } from '../../components/format';
@@ -91,6 +92,7 @@ export function SketchPage() {
             {SAVE_LABEL[saveState]} · valuation {doc.valuationDate}
           </p>
           {errors.name && <p className="text-xs text-stressed">name: {errors.name}</p>}
+          <ReadOnlyNote scenarioId={doc.id} />
         </div>
         <ModelForm
           market={doc.market}

@@ -12,6 +12,7 @@ import { appDb } from '../../store/db';
 import { newScenario } from '../../engine/scenario-defaults';
 import { seedDemoScenariosOnce } from '../../store/demo-seed';
 import { getScenario, listScenarios, saveScenario } from '../../store/scenarios';
+import { nudgeSync } from '../../sync/sync-loop';
 
 export type SaveState = 'loading' | 'saved' | 'saving' | 'unsaved' | 'invalid' | 'error';
 
@@ -68,6 +69,7 @@ export function useSketchScenario() {
     setSaveState('saving');
     try {
       await saveScenario(appDb(), d);
+      nudgeSync();
       setSaveState(pending.current ? 'unsaved' : 'saved');
       void qc.invalidateQueries({ queryKey: ['local', 'scenarios'] });
     } catch (e) {
