@@ -33,10 +33,22 @@ export async function requireDeskRole(
 }
 
 /** The spaces a user's pull covers: their own and one per desk they belong to. */
+export function spacesOf(user: {
+  id: string;
+  memberships: { deskId: string; role: Role }[];
+}): Map<string, Standing> {
+  const spaces = new Map<string, Standing>([[userSpace(user.id), 'owner']]);
+  for (const m of user.memberships) spaces.set(deskSpace(m.deskId), m.role);
+  return spaces;
+}
+
 export async function visibleSpaces(db: Knex, userId: string): Promise<Map<string, Standing>> {
-  const rows = await db('desk_members').where({ user_id: userId }).select('desk_id', 'role');
+  const { rows } = await db.raw('select desk_id, role from desk_members where user_id = ?', [
+    userId,
+  ]);
   const spaces = new Map<string, Standing>([[userSpace(userId), 'owner']]);
-  for (const r of rows) spaces.set(deskSpace(r.desk_id), r.role);
+  for (const r of rows as { desk_id: string; role: Role }[])
+    spaces.set(deskSpace(r.desk_id), r.role);
   return spaces;
 }
 

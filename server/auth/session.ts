@@ -8,6 +8,8 @@ export interface SessionUser {
   id: string;
   email: string;
   name: string;
+  /** the caller's desks and roles, read with the user on this request */
+  memberships: { deskId: string; role: 'lead' | 'trader' | 'analyst' }[];
 }
 
 declare module 'express-serve-static-core' {
@@ -28,14 +30,19 @@ export function requireUser(db: Knex, secret: string) {
     const token = tokenFrom(req);
     const claims = token ? verifyToken(secret, token) : null;
     if (!claims) return next(new HttpError(401, 'unauthenticated', 'sign in first'));
-    const user = await db('users')
-      .select('id', 'email', 'name', 'tokens_valid_after')
-      .where({ id: claims.sub })
-      .first();
+    // raw SQL: this runs on every authenticated request
+    const { rows } = await db.raw(
+      `select u.id, u.email, u.name, u.tokens_valid_after,
+         coalesce((select json_agg(json_build_object('deskId', m.desk_id, 'role', m.role))
+                   from desk_members m where m.user_id = u.id), '[]'::json) as memberships
+       from users u where u.id = ?`,
+      [claims.sub],
+    );
+    const user = rows[0];
     if (!user || new Date(user.tokens_valid_after).getTime() > claims.issuedAtMs) {
       return next(new HttpError(401, 'unauthenticated', 'session expired; sign in again'));
     }
-    req.user = { id: user.id, email: user.email, name: user.name };
+    req.user = { id: user.id, email: user.email, name: user.name, memberships: user.memberships };
     next();
   };
 }

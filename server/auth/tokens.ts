@@ -22,16 +22,39 @@ export function issueToken(secret: string, userId: string, now = Date.now()): st
   });
 }
 
-export function verifyToken(secret: string, token: string): SessionClaims | null {
+/**
+ * Tokens that verified recently, by their exact text, until they expire: the signature check
+ * is the most expensive step of an authenticated request. Revocation is unaffected (it is
+ * checked against the database on every request), and a cache entry is only ever made by a
+ * successful jwt.verify with the same secret.
+ */
+const verified = new Map<string, SessionClaims & { expMs: number; secret: string }>();
+const CACHE_LIMIT = 10_000;
+
+export function verifyToken(secret: string, token: string, now = Date.now()): SessionClaims | null {
+  const hit = verified.get(token);
+  if (hit && hit.secret === secret) {
+    if (now < hit.expMs) return { sub: hit.sub, issuedAtMs: hit.issuedAtMs };
+    verified.delete(token);
+    return null;
+  }
   try {
     const claims = jwt.verify(token, secret, { algorithms: ['HS256'] });
     if (
       typeof claims !== 'object' ||
       typeof claims.sub !== 'string' ||
-      typeof claims.ims !== 'number'
+      typeof claims.ims !== 'number' ||
+      typeof claims.exp !== 'number'
     ) {
       return null;
     }
+    if (verified.size >= CACHE_LIMIT) verified.clear();
+    verified.set(token, {
+      sub: claims.sub,
+      issuedAtMs: claims.ims,
+      expMs: claims.exp * 1000,
+      secret,
+    });
     return { sub: claims.sub, issuedAtMs: claims.ims };
   } catch {
     return null;

@@ -9,8 +9,8 @@ import {
   nextVersion,
   requireDeskRole,
   setStanding,
+  spacesOf,
   userSpace,
-  visibleSpaces,
 } from '../access';
 import { HttpError, notFound, parseOr400 } from '../errors';
 
@@ -22,7 +22,7 @@ export function setsRouter(db: Knex, auth: RequestHandler) {
   const r = Router();
 
   r.get('/sets', auth, async (req, res) => {
-    const spaces = await visibleSpaces(db, req.user!.id);
+    const spaces = spacesOf(req.user!);
     const rows = await db('scenario_sets as t')
       .leftJoin('desks as d', 'd.id', 't.desk_id')
       .whereIn('t.space', [...spaces.keys()])

@@ -23,7 +23,7 @@ export function syncRouter(db: Knex, auth: RequestHandler): Router {
 
   r.get('/sync/pull', auth, async (req, res) => {
     const q = parseOr400(pullQuery, req.query, 'query');
-    res.json(await pull(db, req.user!.id, q.since));
+    res.json(await pull(db, req.user!, q.since));
   });
 
   r.get('/scenarios/:id/revisions', auth, async (req, res) => {

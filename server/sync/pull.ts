@@ -4,7 +4,8 @@
  * The cursor is opaque to clients: base64url JSON of {space: last version seen}.
  */
 import type { Knex } from 'knex';
-import { canManage, canWrite, visibleSpaces, type Standing } from '../access';
+import { canManage, canWrite, spacesOf, type Standing } from '../access';
+import type { SessionUser } from '../auth/session';
 import type { PullAnswer } from '../../src/sync/protocol';
 import { HttpError } from '../errors';
 
@@ -32,51 +33,62 @@ export function decodeCursor(since: string | undefined): Cursor {
   }
 }
 
+interface PulledRow {
+  id: string;
+  set_id: string;
+  space: string;
+  revision: number;
+  document: unknown;
+  deleted: boolean;
+  change_version: string;
+  updated_at: Date;
+  updated_by: string | null;
+}
+interface PulledSetRow {
+  id: string;
+  name: string;
+  desk_id: string | null;
+  space: string;
+  deleted: boolean;
+  change_version: string;
+}
+
 export const encodeCursor = (c: Cursor) => Buffer.from(JSON.stringify(c)).toString('base64url');
 
 export async function pull(
   db: Knex,
-  userId: string,
+  user: SessionUser,
   since: string | undefined,
   limit = 1000,
 ): Promise<PullAnswer> {
   const cursor = decodeCursor(since);
-  const spaces = await visibleSpaces(db, userId);
+  const spaces = spacesOf(user);
   // in the order the query sorts them (byte order, as collate "C")
   const names = [...spaces.keys()].sort();
   const after = names.map((s) => cursor[s] ?? 0);
   const gone = Object.keys(cursor).filter((s) => !spaces.has(s));
-  const window = db.raw('(select unnest(?::text[]) as space, unnest(?::bigint[]) as after) as c', [
-    names,
-    after,
-  ]);
-  const [rows, setRows, removed, removedSets] = await Promise.all([
-    db('scenarios as s')
-      .join(window, function () {
-        this.on('s.space', '=', 'c.space').andOn('s.change_version', '>', 'c.after');
-      })
-      .leftJoin('users as u', 'u.id', 's.updated_by')
-      .select(
-        's.id',
-        's.set_id',
-        's.space',
-        's.revision',
-        's.document',
-        's.deleted',
-        's.change_version',
-        's.updated_at',
-        'u.name as updated_by',
-      )
-      .orderByRaw('s.space collate "C", s.change_version')
-      .limit(limit + 1),
-    db('scenario_sets as t')
-      .join(window, function () {
-        this.on('t.space', '=', 'c.space').andOn('t.change_version', '>', 'c.after');
-      })
-      .select('t.id', 't.name', 't.desk_id', 't.space', 't.deleted', 't.change_version'),
+  // raw SQL: a polling client sends this every few seconds
+  const windowSql = 'with c as (select unnest(?::text[]) as space, unnest(?::bigint[]) as after)';
+  // one statement for the scenarios (ordered, limited) and the sets changed in those spaces
+  const [changed, removed, removedSets] = await Promise.all([
+    db.raw(
+      `${windowSql}
+       (select 'scenario' as kind, s.id, s.set_id, s.space, s.revision, s.document, s.deleted,
+               s.change_version, s.updated_at, u.name as updated_by, null as name, null::uuid as desk_id
+        from c join scenarios s on s.space = c.space and s.change_version > c.after
+        left join users u on u.id = s.updated_by
+        order by s.space collate "C", s.change_version limit ?)
+       union all
+       (select 'set', t.id, null, t.space, null, null, t.deleted, t.change_version, null, null, t.name, t.desk_id
+        from c join scenario_sets t on t.space = c.space and t.change_version > c.after)`,
+      [names, after, limit + 1],
+    ),
     gone.length ? db('scenarios').whereIn('space', gone).pluck('id') : Promise.resolve([]),
     gone.length ? db('scenario_sets').whereIn('space', gone).pluck('id') : Promise.resolve([]),
   ]);
+  const all = changed.rows as ((PulledRow | PulledSetRow) & { kind: 'scenario' | 'set' })[];
+  const rows = all.filter((r) => r.kind === 'scenario') as PulledRow[];
+  const setRows = all.filter((r) => r.kind === 'set') as PulledSetRow[];
   const more = rows.length > limit;
   const sent = more ? rows.slice(0, limit) : rows;
   const next: Cursor = {};

@@ -1,6 +1,8 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_USERS } from '../../server/demo';
+import jwt from 'jsonwebtoken';
+import { verifyToken } from '../../server/auth/tokens';
 import { apiFixture } from '../support/api';
 import { uniqueEmail } from '../support/database';
 
@@ -88,6 +90,31 @@ describe('accounts', () => {
       );
     }
     expect((await request(app).get('/api/me')).status).toBe(401);
+  });
+
+  it('refuses expired and not-yet-valid tokens, also once a token has been verified and cached', async () => {
+    const trader = DEMO_USERS.find((u) => u.role === 'trader')!;
+    const { body } = await request(app)
+      .post('/api/auth/signin')
+      .send({ email: trader.email, password: trader.password });
+    const claims = verifyToken('api-test-secret', body.token)!;
+    const sub = claims.sub;
+    const past = Math.floor(Date.now() / 1000) - 3600;
+    const expired = jwt.sign({ ims: Date.now(), exp: past, sub }, 'api-test-secret', {
+      algorithm: 'HS256',
+    });
+    const early = jwt.sign({ ims: Date.now(), sub, nbf: past + 7200 }, 'api-test-secret', {
+      algorithm: 'HS256',
+      expiresIn: 3600,
+    });
+    for (const t of [expired, early])
+      expect((await request(app).get('/api/me').set('Authorization', `Bearer ${t}`)).status).toBe(
+        401,
+      );
+    // the cached verification of a good token ends with the token's own expiry
+    expect(verifyToken('api-test-secret', body.token)).not.toBeNull();
+    expect(verifyToken('api-test-secret', body.token, Date.now() + 13 * 3600_000)).toBeNull();
+    expect(verifyToken('another-secret', body.token)).toBeNull();
   });
 
   it('answers bad input with 4xx and a field path, never 500', async () => {

@@ -7,6 +7,7 @@ import { benchCalibration } from './calibration';
 import { benchMonteCarlo } from './monte-carlo';
 import { benchReplay } from './replay';
 import { benchSurface } from './surface';
+import { benchSync } from './sync';
 
 console.log(`Saltation benchmarks — Node ${process.versions.node}, one core\n`);
 console.log(
@@ -25,3 +26,8 @@ console.table(await benchMonteCarlo());
 
 console.log('\nHedge replay: 10,000 paths, daily rebalancing over one month, two legs, one core.');
 console.table(await benchReplay());
+
+console.log(
+  '\nSync service on loopback (autocannon, 10 connections, 5 s each; its own PostgreSQL and service process).',
+);
+console.table(await benchSync());
