@@ -42,16 +42,6 @@ export function spacesOf(user: {
   return spaces;
 }
 
-export async function visibleSpaces(db: Knex, userId: string): Promise<Map<string, Standing>> {
-  const { rows } = await db.raw('select desk_id, role from desk_members where user_id = ?', [
-    userId,
-  ]);
-  const spaces = new Map<string, Standing>([[userSpace(userId), 'owner']]);
-  for (const r of rows as { desk_id: string; role: Role }[])
-    spaces.set(deskSpace(r.desk_id), r.role);
-  return spaces;
-}
-
 export interface SetRow {
   id: string;
   name: string;
