@@ -56,7 +56,7 @@ describe('desk sync in the browser', () => {
     await row(other).getByRole('link', { name: shared.name }).click();
     const theirs = other.getByLabel('Intensity λ (per year)');
     await expect.poll(() => theirs.inputValue(), { timeout: 20000 }).toBe('0.77');
-    expect(await other.getByTestId('read-only-note').count()).toBe(1);
+    await expect.poll(() => other.getByTestId('read-only-note').count()).toBe(1);
     // the analyst's edit is refused by the service and kept as a device-only copy
     await theirs.fill('0.5');
     await other.getByRole('link', { name: 'Library' }).click();

@@ -47,7 +47,7 @@ describe('the app shell', () => {
     await page.reload();
     await expect.poll(() => page.getByRole('link', { name }).count()).toBe(1);
     const row = page.getByTestId('scenario-row').filter({ hasText: name });
-    await expect.poll(() => row.textContent()).toContain('local');
+    await expect.poll(() => row.getByTestId('sync-state').getAttribute('data-state')).toBe('local');
     expect(errors).toEqual([]);
     await context.close();
   });
