@@ -1,6 +1,10 @@
 import { useRegisterSW } from 'virtual:pwa-register/react';
+import { syncNow } from '../sync/sync-loop';
 
-/** Offers a new version once its service worker is waiting; never reloads on its own. */
+/**
+ * Offers a new version once its service worker is waiting; never reloads on its own. Before
+ * reloading it gives the outbox one sync round (edits are safe in IndexedDB either way).
+ */
 export function UpdatePrompt() {
   const {
     needRefresh: [needRefresh, setNeedRefresh],
@@ -16,7 +20,7 @@ export function UpdatePrompt() {
       <button
         type="button"
         className="font-semibold text-teal underline"
-        onClick={() => void updateServiceWorker(true)}
+        onClick={() => void syncNow().finally(() => void updateServiceWorker(true))}
       >
         Reload to update
       </button>
