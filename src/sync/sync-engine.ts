@@ -239,6 +239,8 @@ async function applyPull(db: SaltationDb, userId: string, a: PullAnswer, report:
             c.scenarioId,
           ),
           updatedBy: c.updatedBy,
+          // when it was written on the service, not when this device heard of it
+          updatedAt: Date.parse(c.updatedAt) || Date.now(),
         });
     }
     for (const id of a.removed) {
