@@ -3,6 +3,7 @@ import { useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router';
 import type { ApiError } from '../../api/client';
 import { changePassword, meQuery, useSignOut } from '../../api/session';
+import { Notice } from '../../components/Notice';
 import { TextField } from '../../components/TextField';
 import { unsyncedQuery } from '../../store/hooks';
 
@@ -72,14 +73,7 @@ export function AccountPage() {
         <button type="submit" className="rounded-md bg-teal px-4 py-1.5 font-semibold text-paper">
           Change password
         </button>
-        {message && (
-          <p
-            role={message.ok ? 'status' : 'alert'}
-            className={message.ok ? 'text-sm text-teal' : 'text-sm text-stressed'}
-          >
-            {message.text}
-          </p>
-        )}
+        <Notice message={message} />
       </form>
       <div className="space-y-2">
         <h2 className="text-lg font-semibold">Sign out</h2>

@@ -4,6 +4,7 @@ import { useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router';
 import { apiFetch, type ApiError } from '../../api/client';
 import { meQuery, resetPassword } from '../../api/session';
+import { Notice } from '../../components/Notice';
 import { TextField } from '../../components/TextField';
 
 export function ResetPage() {
@@ -41,19 +42,13 @@ export function ResetPage() {
           </button>
         </form>
       )}
-      {result && (
-        <p
-          role={result.ok ? 'status' : 'alert'}
-          className={result.ok ? 'text-teal' : 'text-stressed'}
-        >
-          {result.text}{' '}
-          {result.ok && (
-            <Link to="/signin" className="underline">
-              Sign in
-            </Link>
-          )}
-        </p>
-      )}
+      <Notice message={result}>
+        {result?.ok && (
+          <Link to="/signin" className="underline">
+            Sign in
+          </Link>
+        )}
+      </Notice>
     </section>
   );
 }
@@ -102,19 +97,13 @@ export function InvitePage() {
           Accept as {me.data.user.email}
         </button>
       )}
-      {result && (
-        <p
-          role={result.ok ? 'status' : 'alert'}
-          className={result.ok ? 'text-teal' : 'text-stressed'}
-        >
-          {result.text}{' '}
-          {result.ok && (
-            <Link to="/desk" className="underline">
-              Open the Desk page
-            </Link>
-          )}
-        </p>
-      )}
+      <Notice message={result}>
+        {result?.ok && (
+          <Link to="/desk" className="underline">
+            Open the Desk page
+          </Link>
+        )}
+      </Notice>
     </section>
   );
 }

@@ -5,6 +5,7 @@ import type { ApiError } from '../../api/client';
 import { deskApi, desksQuery, invitesQuery, membersQuery, type Role } from '../../api/desks';
 import { meQuery } from '../../api/session';
 import { MembersTable } from '../../components/desk/MembersTable';
+import { Notice } from '../../components/Notice';
 import { TextField } from '../../components/TextField';
 
 export function DeskPage() {
@@ -100,14 +101,7 @@ export function DeskPage() {
           {desk && <span className="text-sm text-muted">your role: {desk.role}</span>}
         </div>
       )}
-      {message && (
-        <p
-          role={message.ok ? 'status' : 'alert'}
-          className={message.ok ? 'text-sm text-teal' : 'text-sm text-stressed'}
-        >
-          {message.text}
-        </p>
-      )}
+      <Notice message={message} />
       {desk && members.data && (
         <MembersTable
           members={members.data.members}

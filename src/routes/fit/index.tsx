@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
 import { Link } from 'react-router';
-import { CautionNote } from '../../components/CautionNote';
+import { ToolPage } from '../../components/ToolPage';
 import { ScenarioSelect } from '../../components/ScenarioSelect';
 import { ProgressBar } from '../../components/ProgressBar';
 import { CsvInput } from '../../components/CsvInput';
@@ -109,11 +109,11 @@ export function FitPage() {
   };
 
   return (
-    <div className="space-y-5">
-      <h1 className="text-2xl font-semibold">Fit</h1>
-      <CautionNote />
-      <div className="grid gap-6 lg:grid-cols-[22rem_1fr]">
-        <aside className="space-y-4">
+    <ToolPage
+      title="Fit"
+      asideWidth="22rem"
+      aside={
+        <>
           <ScenarioSelect
             label="Market and starting point from"
             scenarios={scenarios.data!}
@@ -201,64 +201,62 @@ export function FitPage() {
               {error}
             </p>
           )}
-        </aside>
-        <section className="min-w-0 space-y-4">
-          <CsvInput
-            hint="expiry (date or years), strike, and impliedVol — or type with price, or bid and ask; optional forward, or rate and dividend, per row"
-            placeholder={EXAMPLE}
-            maxBytes={MAX_QUOTES_FILE_BYTES}
-            testId="quotes-file"
-            label="Quotes CSV"
-            onText={(t) =>
-              setParsed(parseQuotesCsv(t, source.document.market, source.document.valuationDate))
-            }
-            onTooLarge={(m) => setParsed({ quotes: [], issues: [], fileError: m })}
+        </>
+      }
+    >
+      <CsvInput
+        hint="expiry (date or years), strike, and impliedVol — or type with price, or bid and ask; optional forward, or rate and dividend, per row"
+        placeholder={EXAMPLE}
+        maxBytes={MAX_QUOTES_FILE_BYTES}
+        testId="quotes-file"
+        label="Quotes CSV"
+        onText={(t) =>
+          setParsed(parseQuotesCsv(t, source.document.market, source.document.valuationDate))
+        }
+        onTooLarge={(m) => setParsed({ quotes: [], issues: [], fileError: m })}
+      />
+      {parsed?.fileError && (
+        <p role="alert" className="text-sm text-stressed">
+          {parsed.fileError}
+        </p>
+      )}
+      {parsed && !parsed.fileError && (
+        <p className="text-sm" data-testid="quotes-summary">
+          {parsed.quotes.length} quotes kept over {new Set(parsed.quotes.map((q) => q.expiry)).size}{' '}
+          expiries, {parsed.issues.length} rows rejected.
+        </p>
+      )}
+      {parsed && <RowIssues issues={parsed.issues} />}
+      {fitted && (
+        <div className="space-y-4">
+          {outcome?.kind === 'verdict' && <VerdictPanel verdict={outcome.verdict} />}
+          <ParameterTable result={fitted} />
+          <div className="flex items-center gap-3">
+            <button
+              type="button"
+              onClick={() => void saveAsScenario()}
+              className="rounded bg-teal px-4 py-1.5 text-sm font-semibold text-paper"
+            >
+              Save as scenario
+            </button>
+            {savedId && (
+              <Link
+                to={`/?scenario=${savedId}`}
+                className="text-sm text-teal underline"
+                data-testid="saved-scenario-link"
+              >
+                Saved — open it in Sketch
+              </Link>
+            )}
+          </div>
+          <FitCharts
+            residuals={fitted.residuals}
+            compare={outcome?.kind === 'verdict' ? outcome.verdict.heston.residuals : undefined}
           />
-          {parsed?.fileError && (
-            <p role="alert" className="text-sm text-stressed">
-              {parsed.fileError}
-            </p>
-          )}
-          {parsed && !parsed.fileError && (
-            <p className="text-sm" data-testid="quotes-summary">
-              {parsed.quotes.length} quotes kept over{' '}
-              {new Set(parsed.quotes.map((q) => q.expiry)).size} expiries, {parsed.issues.length}{' '}
-              rows rejected.
-            </p>
-          )}
-          {parsed && <RowIssues issues={parsed.issues} />}
-          {fitted && (
-            <div className="space-y-4">
-              {outcome?.kind === 'verdict' && <VerdictPanel verdict={outcome.verdict} />}
-              <ParameterTable result={fitted} />
-              <div className="flex items-center gap-3">
-                <button
-                  type="button"
-                  onClick={() => void saveAsScenario()}
-                  className="rounded bg-teal px-4 py-1.5 text-sm font-semibold text-paper"
-                >
-                  Save as scenario
-                </button>
-                {savedId && (
-                  <Link
-                    to={`/?scenario=${savedId}`}
-                    className="text-sm text-teal underline"
-                    data-testid="saved-scenario-link"
-                  >
-                    Saved — open it in Sketch
-                  </Link>
-                )}
-              </div>
-              <FitCharts
-                residuals={fitted.residuals}
-                compare={outcome?.kind === 'verdict' ? outcome.verdict.heston.residuals : undefined}
-              />
-              <ResidualMap residuals={fitted.residuals} />
-              <ResidualTable result={fitted} />
-            </div>
-          )}
-        </section>
-      </div>
-    </div>
+          <ResidualMap residuals={fitted.residuals} />
+          <ResidualTable result={fitted} />
+        </div>
+      )}
+    </ToolPage>
   );
 }

@@ -2,6 +2,7 @@ import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useMemo, useRef, useState, type FormEvent } from 'react';
 import { deskApi } from '../../api/desks';
 import { meQuery } from '../../api/session';
+import { Notice } from '../../components/Notice';
 import { ScenarioGroup, type RowActions } from '../../components/library/ScenarioGroup';
 import { SetsPanel } from '../../components/library/SetsPanel';
 import { newScenario } from '../../engine/scenario-defaults';
@@ -202,14 +203,7 @@ export function LibraryPage() {
           }}
         />
       </div>
-      {message && (
-        <p
-          role={message.ok ? 'status' : 'alert'}
-          className={message.ok ? 'text-sm text-teal' : 'text-sm text-stressed'}
-        >
-          {message.text}
-        </p>
-      )}
+      <Notice message={message} />
       {scenarios.isPending ? (
         <p className="text-muted">Loading scenarios…</p>
       ) : scenarios.isError ? (

@@ -1,7 +1,8 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { CautionNote } from '../../components/CautionNote';
+import { ToolPage } from '../../components/ToolPage';
 import { ScenarioSelect } from '../../components/ScenarioSelect';
+import { SeedField, SettingField } from '../../components/SettingField';
 import { ProgressBar } from '../../components/ProgressBar';
 import { formatNumber, formatTenor } from '../../components/format';
 import { PathsCharts } from '../../components/paths/PathsCharts';
@@ -13,8 +14,6 @@ import { appDb } from '../../store/db';
 import { localScenariosQuery, useSaveScenario } from '../../store/hooks';
 import { cacheSize, clearCache } from '../../store/result-cache';
 import { usePathsRun } from './use-paths-run';
-
-const newSeed = () => Math.floor(Math.random() * 2 ** 31);
 
 export function PathsPage() {
   const scenarios = useQuery(localScenariosQuery);
@@ -104,24 +103,20 @@ export function PathsPage() {
     await save.mutateAsync({ ...source.document, runs: [...(source.document.runs ?? []), entry] });
     setSaved(true);
   };
-  const field = (key: 'paths' | 'stepsPerDay' | 'horizonDays' | 'seed', label: string) => (
-    <label className="grid grid-cols-[1fr_8rem] items-center gap-2 text-sm">
-      <span>{label}</span>
-      <input
-        aria-label={label}
-        value={form[key]}
-        onChange={(e) => setForm({ ...form, [key]: e.target.value })}
-        className="tabular rounded border border-rule bg-panel px-2 py-1 text-right"
-      />
-    </label>
+  const field = (key: 'paths' | 'stepsPerDay' | 'horizonDays', label: string) => (
+    <SettingField
+      label={label}
+      value={form[key]}
+      onChange={(v) => setForm({ ...form, [key]: v })}
+    />
   );
 
   return (
-    <div className="space-y-5">
-      <h1 className="text-2xl font-semibold">Paths</h1>
-      <CautionNote />
-      <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
-        <aside className="min-w-0 space-y-3">
+    <ToolPage
+      title="Paths"
+      asideWidth="20rem"
+      aside={
+        <>
           <ScenarioSelect
             label="Scenario (with its stress)"
             scenarios={scenarios.data!}
@@ -131,16 +126,7 @@ export function PathsPage() {
           {field('paths', 'Paths')}
           {field('stepsPerDay', 'Steps per day')}
           {field('horizonDays', 'Horizon (days)')}
-          <div className="flex items-end gap-2">
-            <div className="flex-1">{field('seed', 'Seed')}</div>
-            <button
-              type="button"
-              className="text-sm text-teal"
-              onClick={() => setForm({ ...form, seed: String(newSeed()) })}
-            >
-              New seed
-            </button>
-          </div>
+          <SeedField value={form.seed} onChange={(seed) => setForm({ ...form, seed })} />
           <label className="flex items-center gap-2 text-sm">
             <input
               type="checkbox"
@@ -203,95 +189,91 @@ export function PathsPage() {
               clear cache
             </button>
           </p>
-        </aside>
-        <section className="min-w-0 space-y-4">
-          {!run ? (
-            <p className="text-muted">
-              Set the run up and press Simulate. The same settings and seed give the same numbers on
-              any machine and with any number of workers.
-            </p>
-          ) : (
-            <>
-              <p
-                className="tabular text-sm"
-                data-testid="paths-summary"
-                data-from-cache={run.fromCache ? 'yes' : 'no'}
-                data-final-progress={run.fromCache ? '' : String(Math.round(100 * lastProgress))}
-              >
-                {run.summary.paths.toLocaleString()} paths × {run.summary.steps} steps, seed{' '}
-                {run.summary.seed} ·{' '}
-                {run.fromCache
-                  ? 'opened from the cache'
-                  : `${run.summary.elapsedMs.toFixed(0)} ms on ${run.workers} worker${run.workers > 1 ? 's' : ''}`}{' '}
-                · mean S_T {formatNumber(run.summary.terminal.mean, 3)} ±{' '}
-                {formatNumber(run.summary.terminal.meanStdError, 3)} ·{' '}
-                {formatNumber(run.summary.jumpsPerPath, 3)} jumps a path
-              </p>
-              {run.summary.estimates.length > 0 && (
-                <table className="tabular text-right text-sm" data-testid="mc-table">
-                  <thead className="text-xs text-muted">
-                    <tr>
-                      {[
-                        'option',
-                        'Monte Carlo',
-                        'std. error',
-                        'with control variate',
-                        'its std. error',
-                        'analytic (COS)',
-                        '(controlled − COS) / s.e.',
-                      ].map((h) => (
-                        <th key={h} className="px-3 font-normal">
-                          {h}
-                        </th>
-                      ))}
-                    </tr>
-                  </thead>
-                  <tbody>
-                    {run.summary.estimates.map((e, i) => (
-                      <tr key={i} className="border-t border-rule/60">
-                        <td className="px-3 text-left">
-                          {strikes.split(/[,\s]+/).filter(Boolean)[i]}× spot,{' '}
-                          {formatTenor(Number(form.horizonDays) / 365)}
-                        </td>
-                        <td className="px-3">{formatNumber(e.price, 4)}</td>
-                        <td className="px-3">{formatNumber(e.stdError, 4)}</td>
-                        <td className="px-3">{formatNumber(e.priceControlled, 4)}</td>
-                        <td className="px-3">{formatNumber(e.stdErrorControlled, 4)}</td>
-                        <td className="px-3">{formatNumber(run.analytic[i], 4)}</td>
-                        <td className="px-3">
-                          {e.stdErrorControlled > 0
-                            ? (
-                                (e.priceControlled - run.analytic[i]) /
-                                e.stdErrorControlled
-                              ).toFixed(2)
-                            : '—'}
-                        </td>
-                      </tr>
-                    ))}
-                  </tbody>
-                </table>
-              )}
-              <button
-                type="button"
-                onClick={() => void saveRun()}
-                className="rounded border border-teal px-3 py-1 text-sm text-teal"
-              >
-                Save run into the scenario
-              </button>
-              {saved && <span className="ml-3 text-sm text-teal">Saved with its seed.</span>}
-              {run.view && (
-                <PathsCharts
-                  view={run.view}
-                  histogram={run.histogram}
-                  spec={run.spec}
-                  density={run.density}
-                  meanTerminal={run.summary.terminal.mean}
-                />
-              )}
-            </>
+        </>
+      }
+    >
+      {!run ? (
+        <p className="text-muted">
+          Set the run up and press Simulate. The same settings and seed give the same numbers on any
+          machine and with any number of workers.
+        </p>
+      ) : (
+        <>
+          <p
+            className="tabular text-sm"
+            data-testid="paths-summary"
+            data-from-cache={run.fromCache ? 'yes' : 'no'}
+            data-final-progress={run.fromCache ? '' : String(Math.round(100 * lastProgress))}
+          >
+            {run.summary.paths.toLocaleString()} paths × {run.summary.steps} steps, seed{' '}
+            {run.summary.seed} ·{' '}
+            {run.fromCache
+              ? 'opened from the cache'
+              : `${run.summary.elapsedMs.toFixed(0)} ms on ${run.workers} worker${run.workers > 1 ? 's' : ''}`}{' '}
+            · mean S_T {formatNumber(run.summary.terminal.mean, 3)} ±{' '}
+            {formatNumber(run.summary.terminal.meanStdError, 3)} ·{' '}
+            {formatNumber(run.summary.jumpsPerPath, 3)} jumps a path
+          </p>
+          {run.summary.estimates.length > 0 && (
+            <table className="tabular text-right text-sm" data-testid="mc-table">
+              <thead className="text-xs text-muted">
+                <tr>
+                  {[
+                    'option',
+                    'Monte Carlo',
+                    'std. error',
+                    'with control variate',
+                    'its std. error',
+                    'analytic (COS)',
+                    '(controlled − COS) / s.e.',
+                  ].map((h) => (
+                    <th key={h} className="px-3 font-normal">
+                      {h}
+                    </th>
+                  ))}
+                </tr>
+              </thead>
+              <tbody>
+                {run.summary.estimates.map((e, i) => (
+                  <tr key={i} className="border-t border-rule/60">
+                    <td className="px-3 text-left">
+                      {strikes.split(/[,\s]+/).filter(Boolean)[i]}× spot,{' '}
+                      {formatTenor(Number(form.horizonDays) / 365)}
+                    </td>
+                    <td className="px-3">{formatNumber(e.price, 4)}</td>
+                    <td className="px-3">{formatNumber(e.stdError, 4)}</td>
+                    <td className="px-3">{formatNumber(e.priceControlled, 4)}</td>
+                    <td className="px-3">{formatNumber(e.stdErrorControlled, 4)}</td>
+                    <td className="px-3">{formatNumber(run.analytic[i], 4)}</td>
+                    <td className="px-3">
+                      {e.stdErrorControlled > 0
+                        ? ((e.priceControlled - run.analytic[i]) / e.stdErrorControlled).toFixed(2)
+                        : '—'}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
           )}
-        </section>
-      </div>
-    </div>
+          <button
+            type="button"
+            onClick={() => void saveRun()}
+            className="rounded border border-teal px-3 py-1 text-sm text-teal"
+          >
+            Save run into the scenario
+          </button>
+          {saved && <span className="ml-3 text-sm text-teal">Saved with its seed.</span>}
+          {run.view && (
+            <PathsCharts
+              view={run.view}
+              histogram={run.histogram}
+              spec={run.spec}
+              density={run.density}
+              meanTerminal={run.summary.terminal.mean}
+            />
+          )}
+        </>
+      )}
+    </ToolPage>
   );
 }

@@ -1,8 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
-import { CautionNote } from '../../components/CautionNote';
+import { ToolPage } from '../../components/ToolPage';
 import { ProgressBar } from '../../components/ProgressBar';
 import { ScenarioSelect } from '../../components/ScenarioSelect';
+import { SeedField, SettingField } from '../../components/SettingField';
 import { DrillDownPanel } from '../../components/replay/DrillDownPanel';
 import { HedgeFields } from '../../components/replay/HedgeFields';
 import { LegsTable } from '../../components/replay/LegsTable';
@@ -24,8 +25,6 @@ import { localScenariosQuery, useSaveScenario } from '../../store/hooks';
 import { formFromRun, loadForm, storeForm } from './form-storage';
 import { defaultReplayForm, requestsFromForm, type ReplayForm } from './replay-form';
 import { useReplayRun } from './use-replay-run';
-
-const newSeed = () => Math.floor(Math.random() * 2 ** 31);
 
 export function ReplayPage() {
   const scenarios = useQuery(localScenariosQuery);
@@ -99,24 +98,13 @@ export function ReplayPage() {
         result: checkReplay(run, fresh.results.map(summaryOf), ENGINE_VERSION),
       });
   };
-  const field = (key: 'paths' | 'seed', label: string) => (
-    <label className="grid grid-cols-[1fr_9rem] items-center gap-2 text-sm">
-      <span>{label}</span>
-      <input
-        aria-label={label}
-        value={f[key]}
-        onChange={(e) => update({ ...f, [key]: e.target.value })}
-        className="tabular rounded border border-rule bg-panel px-2 py-1 text-right"
-      />
-    </label>
-  );
 
   return (
-    <div className="space-y-5">
-      <h1 className="text-2xl font-semibold">Replay</h1>
-      <CautionNote />
-      <div className="grid gap-6 lg:grid-cols-[26rem_1fr]">
-        <aside className="min-w-0 space-y-4">
+    <ToolPage
+      title="Replay"
+      asideWidth="26rem"
+      aside={
+        <>
           <ScenarioSelect
             label="Scenario (with its stress)"
             scenarios={scenarios.data!}
@@ -153,17 +141,13 @@ export function ReplayPage() {
               onChange={(compare) => update({ ...f, compare })}
             />
           )}
-          {field('paths', 'Paths')}
-          <div className="flex items-end gap-2">
-            <div className="flex-1">{field('seed', 'Seed')}</div>
-            <button
-              type="button"
-              className="text-sm text-teal"
-              onClick={() => update({ ...f, seed: String(newSeed()) })}
-            >
-              New seed
-            </button>
-          </div>
+          <SettingField
+            label="Paths"
+            value={f.paths}
+            onChange={(paths) => update({ ...f, paths })}
+            inputWidth="9rem"
+          />
+          <SeedField value={f.seed} onChange={(seed) => update({ ...f, seed })} inputWidth="9rem" />
           <div className="flex gap-3">
             <button
               type="button"
@@ -197,49 +181,48 @@ export function ReplayPage() {
             onOpen={(run) => update(formFromRun(run))}
             onReplay={(run) => void replaySaved(run)}
           />
-        </aside>
-        <section className="min-w-0 space-y-4">
-          {!view ? (
-            <p className="text-muted">
-              Build the position, choose the hedge and press Replay hedge. The same position, hedge,
-              paths and seed give the same P&amp;L to the last bit on any machine and with any
-              number of workers.
-            </p>
-          ) : (
-            <>
-              <p className="tabular text-sm" data-testid="replay-summary">
-                {view.results[0].paths.toLocaleString()} paths × {view.results[0].steps} rebalances,
-                seed {view.requests[0].seed} ·{' '}
-                {view.fromCache
-                  ? 'opened from the cache'
-                  : `${view.results.reduce((a, r) => a + r.elapsedMs, 0).toFixed(0)} ms on ${view.workers} worker${view.workers > 1 ? 's' : ''}`}{' '}
-                · position bought for {formatNumber(view.results[0].premium, 4)} (negative: premium
-                received) · P&amp;L discounted to today
-              </p>
-              <ReplayStats requests={view.requests} results={view.results} />
-              <div className="flex items-center gap-3">
-                <button
-                  type="button"
-                  onClick={() => void saveRun()}
-                  className="rounded border border-teal px-3 py-1 text-sm text-teal"
-                >
-                  Save run into the scenario
-                </button>
-                {saved && <span className="text-sm text-teal">Saved with its seed.</span>}
-              </div>
-              <ReplayCharts
-                requests={view.requests}
-                results={view.results}
-                histograms={view.histograms}
-              />
-              <DrillDownPanel
-                requests={view.requests}
-                worstPaths={view.results.map((r) => r.worstPath)}
-              />
-            </>
-          )}
-        </section>
-      </div>
-    </div>
+        </>
+      }
+    >
+      {!view ? (
+        <p className="text-muted">
+          Build the position, choose the hedge and press Replay hedge. The same position, hedge,
+          paths and seed give the same P&amp;L to the last bit on any machine and with any number of
+          workers.
+        </p>
+      ) : (
+        <>
+          <p className="tabular text-sm" data-testid="replay-summary">
+            {view.results[0].paths.toLocaleString()} paths × {view.results[0].steps} rebalances,
+            seed {view.requests[0].seed} ·{' '}
+            {view.fromCache
+              ? 'opened from the cache'
+              : `${view.results.reduce((a, r) => a + r.elapsedMs, 0).toFixed(0)} ms on ${view.workers} worker${view.workers > 1 ? 's' : ''}`}{' '}
+            · position bought for {formatNumber(view.results[0].premium, 4)} (negative: premium
+            received) · P&amp;L discounted to today
+          </p>
+          <ReplayStats requests={view.requests} results={view.results} />
+          <div className="flex items-center gap-3">
+            <button
+              type="button"
+              onClick={() => void saveRun()}
+              className="rounded border border-teal px-3 py-1 text-sm text-teal"
+            >
+              Save run into the scenario
+            </button>
+            {saved && <span className="text-sm text-teal">Saved with its seed.</span>}
+          </div>
+          <ReplayCharts
+            requests={view.requests}
+            results={view.results}
+            histograms={view.histograms}
+          />
+          <DrillDownPanel
+            requests={view.requests}
+            worstPaths={view.results.map((r) => r.worstPath)}
+          />
+        </>
+      )}
+    </ToolPage>
   );
 }
