@@ -107,7 +107,7 @@ export async function benchSync(): Promise<Record<string, string>[]> {
         note,
       });
     const peer = await load(`${api}/me`, token);
-    row('GET /api/me (peer: JWT + one query)', peer);
+    row('GET /api/me (peer: session check, then the desks query)', peer);
     const empty = await load(`${api}/sync/pull?since=${full.cursor}`, token);
     row(
       'pull, nothing new (desk of 500 scenarios)',
