@@ -2,6 +2,8 @@
 import type { NextFunction, Request, Response } from 'express';
 import type { Knex } from 'knex';
 import { HttpError } from '../errors';
+import { isUuid } from '../access';
+import { prepared } from '../prepared';
 import { SESSION_COOKIE, verifyToken } from './tokens';
 
 export interface SessionUser {
@@ -29,16 +31,24 @@ export function requireUser(db: Knex, secret: string) {
   return async (req: Request, _res: Response, next: NextFunction) => {
     const token = tokenFrom(req);
     const claims = token ? verifyToken(secret, token) : null;
-    if (!claims) return next(new HttpError(401, 'unauthenticated', 'sign in first'));
-    // raw SQL: this runs on every authenticated request
-    const { rows } = await db.raw(
+    if (!claims || !isUuid(claims.sub))
+      return next(new HttpError(401, 'unauthenticated', 'sign in first'));
+    // a prepared statement: this runs on every authenticated request
+    const [user] = await prepared<{
+      id: string;
+      email: string;
+      name: string;
+      tokens_valid_after: Date;
+      memberships: SessionUser['memberships'];
+    }>(
+      db,
+      'session-user',
       `select u.id, u.email, u.name, u.tokens_valid_after,
          coalesce((select json_agg(json_build_object('deskId', m.desk_id, 'role', m.role))
                    from desk_members m where m.user_id = u.id), '[]'::json) as memberships
-       from users u where u.id = ?`,
+       from users u where u.id = $1`,
       [claims.sub],
     );
-    const user = rows[0];
     if (!user || new Date(user.tokens_valid_after).getTime() > claims.issuedAtMs) {
       return next(new HttpError(401, 'unauthenticated', 'session expired; sign in again'));
     }

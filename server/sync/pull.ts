@@ -8,6 +8,7 @@ import { canManage, canWrite, spacesOf, type Standing } from '../access';
 import type { SessionUser } from '../auth/session';
 import type { PullAnswer } from '../../src/sync/protocol';
 import { HttpError } from '../errors';
+import { prepared } from '../prepared';
 
 export type Cursor = Record<string, number>;
 
@@ -67,17 +68,18 @@ export async function pull(
   const names = [...spaces.keys()].sort();
   const after = names.map((s) => cursor[s] ?? 0);
   const gone = Object.keys(cursor).filter((s) => !spaces.has(s));
-  // raw SQL: a polling client sends this every few seconds
-  const windowSql = 'with c as (select unnest(?::text[]) as space, unnest(?::bigint[]) as after)';
-  // one statement for the scenarios (ordered, limited) and the sets changed in those spaces
+  // a prepared statement: a polling client sends this every few seconds. One statement for
+  // the scenarios (ordered, limited) and the sets changed in those spaces.
   const [changed, removed, removedSets] = await Promise.all([
-    db.raw(
-      `${windowSql}
+    prepared<(PulledRow | PulledSetRow) & { kind: 'scenario' | 'set' }>(
+      db,
+      'pull-changes',
+      `with c as (select unnest($1::text[]) as space, unnest($2::bigint[]) as after)
        (select 'scenario' as kind, s.id, s.set_id, s.space, s.revision, s.document, s.deleted,
                s.change_version, s.updated_at, u.name as updated_by, null as name, null::uuid as desk_id
         from c join scenarios s on s.space = c.space and s.change_version > c.after
         left join users u on u.id = s.updated_by
-        order by s.space collate "C", s.change_version limit ?)
+        order by s.space collate "C", s.change_version limit $3)
        union all
        (select 'set', t.id, null, t.space, null, null, t.deleted, t.change_version, null, null, t.name, t.desk_id
         from c join scenario_sets t on t.space = c.space and t.change_version > c.after)`,
@@ -86,7 +88,7 @@ export async function pull(
     gone.length ? db('scenarios').whereIn('space', gone).pluck('id') : Promise.resolve([]),
     gone.length ? db('scenario_sets').whereIn('space', gone).pluck('id') : Promise.resolve([]),
   ]);
-  const all = changed.rows as ((PulledRow | PulledSetRow) & { kind: 'scenario' | 'set' })[];
+  const all = changed;
   const rows = all.filter((r) => r.kind === 'scenario') as PulledRow[];
   const setRows = all.filter((r) => r.kind === 'set') as PulledSetRow[];
   const more = rows.length > limit;
