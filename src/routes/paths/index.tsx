@@ -1,26 +1,26 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { ToolPage } from '../../components/ToolPage';
+import { SaveRunButton } from '../../components/SaveRunButton';
 import { ScenarioSelect } from '../../components/ScenarioSelect';
 import { SeedField, SettingField } from '../../components/SettingField';
 import { ProgressBar } from '../../components/ProgressBar';
 import { formatNumber, formatTenor } from '../../components/format';
 import { PathsCharts } from '../../components/paths/PathsCharts';
 import { simulationSettingsSchema } from '../../engine/schema';
-import { applyStress } from '../../engine/stress';
 import type { OptionSpec } from '../../engine/types';
 import { ENGINE_VERSION } from '../../engine/version';
 import { appDb } from '../../store/db';
-import { localScenariosQuery, useSaveScenario } from '../../store/hooks';
+import { useSaveScenario } from '../../store/hooks';
+import { useScenarioSource } from '../../store/use-scenario-source';
 import { cacheSize, clearCache } from '../../store/result-cache';
 import { usePathsRun } from './use-paths-run';
 
 export function PathsPage() {
-  const scenarios = useQuery(localScenariosQuery);
+  const { scenarios, source, stressed, setSourceId } = useScenarioSource();
   const cache = useQuery({ queryKey: ['local', 'cache-size'], queryFn: () => cacheSize(appDb()) });
   const qc = useQueryClient();
   const save = useSaveScenario();
-  const [sourceId, setSourceId] = useState<string | null>(null);
   const [form, setForm] = useState({
     paths: '20000',
     stepsPerDay: '1',
@@ -33,17 +33,11 @@ export function PathsPage() {
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const { start, cancel, progress, lastProgress, run, error } = usePathsRun();
-  const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
   if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
-  if (!source)
+  if (!source || !stressed)
     return (
       <p className="text-muted">Open Sketch once so that this device has a scenario to simulate.</p>
     );
-  const stressed = applyStress(
-    source.document.market,
-    source.document.model,
-    source.document.stress ?? {},
-  );
 
   const settingsFromForm = () => {
     const horizon = Number(form.horizonDays) / 365;
@@ -255,14 +249,7 @@ export function PathsPage() {
               </tbody>
             </table>
           )}
-          <button
-            type="button"
-            onClick={() => void saveRun()}
-            className="rounded border border-teal px-3 py-1 text-sm text-teal"
-          >
-            Save run into the scenario
-          </button>
-          {saved && <span className="ml-3 text-sm text-teal">Saved with its seed.</span>}
+          <SaveRunButton onSave={() => void saveRun()} saved={saved} />
           {run.view && (
             <PathsCharts
               view={run.view}

@@ -1,7 +1,7 @@
-import { useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { ToolPage } from '../../components/ToolPage';
 import { ProgressBar } from '../../components/ProgressBar';
+import { SaveRunButton } from '../../components/SaveRunButton';
 import { ScenarioSelect } from '../../components/ScenarioSelect';
 import { SeedField, SettingField } from '../../components/SettingField';
 import { DrillDownPanel } from '../../components/replay/DrillDownPanel';
@@ -19,37 +19,30 @@ import {
   type ReplayCheck,
   type SavedReplayRun,
 } from '../../engine/replay-runs';
-import { applyStress } from '../../engine/stress';
 import { ENGINE_VERSION } from '../../engine/version';
-import { localScenariosQuery, useSaveScenario } from '../../store/hooks';
+import { useSaveScenario } from '../../store/hooks';
+import { useScenarioSource } from '../../store/use-scenario-source';
 import { formFromRun, loadForm, storeForm } from './form-storage';
 import { defaultReplayForm, requestsFromForm, type ReplayForm } from './replay-form';
 import { useReplayRun } from './use-replay-run';
 
 export function ReplayPage() {
-  const scenarios = useQuery(localScenariosQuery);
+  const { scenarios, source, stressed, setSourceId } = useScenarioSource();
   const save = useSaveScenario();
-  const [sourceId, setSourceId] = useState<string | null>(null);
   const [form, setForm] = useState<ReplayForm | null>(loadForm);
   const [legIssues, setLegIssues] = useState<Record<number, string>>({});
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const [check, setCheck] = useState<{ id: string; result: ReplayCheck } | null>(null);
   const { start, cancel, progress, view, error } = useReplayRun();
-  const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
   useEffect(() => {
     if (form) storeForm(form);
   }, [form]);
   if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
-  if (!source)
+  if (!source || !stressed)
     return (
       <p className="text-muted">Open Sketch once so that this device has a scenario to replay.</p>
     );
-  const stressed = applyStress(
-    source.document.market,
-    source.document.model,
-    source.document.stress ?? {},
-  );
   const f = form ?? defaultReplayForm(stressed.market.spot);
   const update = (next: ReplayForm) => setForm(next);
   const runs = savedReplayRuns(source.document.runs);
@@ -203,14 +196,7 @@ export function ReplayPage() {
           </p>
           <ReplayStats requests={view.requests} results={view.results} />
           <div className="flex items-center gap-3">
-            <button
-              type="button"
-              onClick={() => void saveRun()}
-              className="rounded border border-teal px-3 py-1 text-sm text-teal"
-            >
-              Save run into the scenario
-            </button>
-            {saved && <span className="text-sm text-teal">Saved with its seed.</span>}
+            <SaveRunButton onSave={() => void saveRun()} saved={saved} />
           </div>
           <ReplayCharts
             requests={view.requests}
