@@ -38,6 +38,9 @@ export async function saveScenario(
     };
     delete stored.syncError;
     await db.scenarios.put(stored);
+    // one entry per scenario: the newest edit stands for all before it (the push sends the
+    // scenario's current document on top of the revision it started from)
+    await db.outbox.where('scenarioId').equals(document.id).delete();
     await db.outbox.add({
       mutationId: crypto.randomUUID(),
       scenarioId: document.id,
@@ -63,6 +66,7 @@ export async function deleteScenario(db: SaltationDb, id: string): Promise<void>
     const existing = await db.scenarios.get(id);
     if (!existing) return;
     await db.scenarios.delete(id);
+    await db.outbox.where('scenarioId').equals(id).delete();
     if (existing.revision > 0) {
       await db.outbox.add({
         mutationId: crypto.randomUUID(),
@@ -72,8 +76,6 @@ export async function deleteScenario(db: SaltationDb, id: string): Promise<void>
         createdAt: Date.now(),
         setId: existing.setId,
       });
-    } else {
-      await db.outbox.where('scenarioId').equals(id).delete();
     }
   });
 }

@@ -12,7 +12,7 @@ import {
 const freshDb = () => new SaltationDb(`test-${Math.random().toString(36).slice(2)}`);
 
 describe('the local scenario store', () => {
-  it('writes the scenario and its outbox entry together, and a second save adds a second entry', async () => {
+  it('writes the scenario and its outbox entry together, and a second save replaces the entry', async () => {
     const db = freshDb();
     const doc = newScenario('a5b1c2d3-0000-4000-8000-000000000001', 'Local one', '2026-12-01');
     await saveScenario(db, doc);
@@ -20,7 +20,9 @@ describe('the local scenario store', () => {
     const all = await listScenarios(db);
     expect(all).toHaveLength(1);
     expect(all[0]).toMatchObject({ name: 'Local one, edited', syncState: 'local', revision: 0 });
-    expect(await db.outbox.where('scenarioId').equals(doc.id).count()).toBe(2);
+    const entries = await db.outbox.where('scenarioId').equals(doc.id).toArray();
+    expect(entries).toHaveLength(1);
+    expect(entries[0].deleted).toBe(false);
     db.close();
   });
 

@@ -36,12 +36,13 @@ export function AccountPage() {
       setMessage({ ok: false, text: (err as ApiError).message });
     }
   };
-  const waiting = (unsynced.data?.outbox ?? 0) + (unsynced.data?.conflicts ?? 0);
+  // scenarios in shared or personal sets whose edits have not reached the service
+  const waiting = (unsynced.data?.pending ?? 0) + (unsynced.data?.conflicts ?? 0);
   const leave = () => {
     if (
       waiting > 0 &&
       !confirm(
-        `${waiting} edit(s) on this device are not on the service yet. They stay on this device and sync when you sign in again. Sign out?`,
+        `${waiting} scenario(s) have edits that are not on the service yet. They stay on this device and sync when you sign in again. Sign out?`,
       )
     )
       return;
@@ -79,7 +80,8 @@ export function AccountPage() {
         <h2 className="text-lg font-semibold">Sign out</h2>
         <p className="text-sm text-muted">
           Scenarios stay on this device after you sign out.
-          {waiting > 0 && ` ${waiting} edit(s) have not reached the service yet.`}
+          {waiting > 0 &&
+            ` ${waiting} scenario(s) have edits that have not reached the service yet.`}
         </p>
         <button type="button" onClick={leave} className="rounded-md border border-rule px-4 py-1.5">
           Sign out
