@@ -56,6 +56,8 @@ export const revisionsQuery = (id: string) =>
   queryOptions({
     queryKey: ['service', 'revisions', id],
     queryFn: () => apiFetch<{ revisions: Revision[] }>(`/scenarios/${id}/revisions`),
+    // fresh each time the history opens: a sync may have added a revision since
+    staleTime: 0,
   });
 
 const send = <T>(method: string, path: string, body?: unknown) =>

@@ -13,7 +13,12 @@ export function SessionBar() {
   const status = useSyncStatus();
   const userId = me.data?.user.id;
   useEffect(() => {
-    if (userId) startSync(userId, () => void qc.invalidateQueries({ queryKey: ['local'] }));
+    if (userId)
+      startSync(userId, () => {
+        void qc.invalidateQueries({ queryKey: ['local'] });
+        // an open history shows the revision a sync just wrote
+        void qc.invalidateQueries({ queryKey: ['service', 'revisions'] });
+      });
     else if (me.data === null) stopSync();
   }, [userId, me.data, qc]);
   if (me.isPending) return null;
