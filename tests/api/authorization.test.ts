@@ -300,4 +300,44 @@ describe('authorization matrix', () => {
     await api.as(own.lead).patch(`/api/desks/${deskA}/members/${u.id}`, { role: 'analyst' });
     expect(await edit()).toBe('denied');
   });
+
+  it('an analyst forks a shared scenario into a personal set that only they can see or change', async () => {
+    const analyst = own.analyst;
+    const personal = await api.as(analyst).post('/api/sets', { name: 'My forks' });
+    expect(personal.status).toBe(201);
+    const shared = (await api.as(analyst).get(`/api/scenarios/${scenarioA}/revisions`)).body
+      .revisions[0].document;
+    const forkId = randomUUID();
+    const fork = await api.as(analyst).post('/api/sync/push', {
+      mutations: [
+        {
+          mutationId: randomUUID(),
+          scenarioId: forkId,
+          setId: personal.body.set.id,
+          baseRevision: 0,
+          document: { ...shared, id: forkId, name: 'My fork' },
+        },
+      ],
+    });
+    expect(fork.body.results[0]).toMatchObject({ status: 'applied', revision: 1 });
+    const sees = async (u: TestUser) =>
+      (await api.as(u).get('/api/sync/pull?since=0')).body.changes.some(
+        (c: { scenarioId: string }) => c.scenarioId === forkId,
+      );
+    expect(await sees(analyst)).toBe(true);
+    expect(await sees(own.lead)).toBe(false);
+    expect((await api.as(own.lead).get(`/api/scenarios/${forkId}/revisions`)).status).toBe(404);
+    const leadEdit = await api.as(own.lead).post('/api/sync/push', {
+      mutations: [
+        {
+          mutationId: randomUUID(),
+          scenarioId: forkId,
+          setId: personal.body.set.id,
+          baseRevision: 1,
+          document: { ...shared, id: forkId },
+        },
+      ],
+    });
+    expect(leadEdit.body.results[0].status).toBe('denied');
+  });
 });
