@@ -59,6 +59,14 @@ function npvs(engine: ql.PricingEngine, options: Leg[]): number[] {
   });
 }
 
+/** QuantLib's AnalyticHestonEngine on flat curves (integration tolerance 1e-13). */
+function hestonEngine(spot: number, rate: number, dividendYield: number, p: QlHestonParams) {
+  const { rTs, qTs } = flatCurves(rate, dividendYield);
+  const s0 = new ql.Handle(new ql.SimpleQuote(spot));
+  const process = new ql.HestonProcess(rTs, qTs, s0, p.v0, p.kappa, p.theta, p.volOfVol, p.rho);
+  return new ql.AnalyticHestonEngine().aheInit1(new ql.HestonModel(process), 1e-13, 1_000_000);
+}
+
 export interface QlJumpParams {
   jumpIntensity: number;
   jumpMean: number;
@@ -79,14 +87,7 @@ export function quantlibBatesPrices(
   p: QlHestonParams & QlJumpParams,
   options: Leg[],
 ): number[] {
-  const { rTs, qTs } = flatCurves(rate, dividendYield);
-  const s0 = new ql.Handle(new ql.SimpleQuote(spot));
-  const process = new ql.HestonProcess(rTs, qTs, s0, p.v0, p.kappa, p.theta, p.volOfVol, p.rho);
-  const engine = new ql.AnalyticHestonEngine().aheInit1(
-    new ql.HestonModel(process),
-    1e-13,
-    1_000_000,
-  );
+  const engine = hestonEngine(spot, rate, dividendYield, p);
   const nu = p.jumpMean;
   const half = 0.5 * p.jumpStdev * p.jumpStdev;
   const kbar = Math.exp(nu + half) - 1;
@@ -111,32 +112,7 @@ export function quantlibHestonPrices(
   p: QlHestonParams,
   options: { type: 'call' | 'put'; strike: number; days: number }[],
 ): number[] {
-  ql.Settings.evaluationDate.set(today);
-  const dc = new ql.Actual365Fixed();
-  // the package's own typings do not see FlatForward as a YieldTermStructure
-  const curve = (r: number) =>
-    new ql.Handle<ql.YieldTermStructure>(
-      new ql.FlatForward().ffInit2(today, r, dc) as unknown as ql.YieldTermStructure,
-    );
-  const rTs = curve(rate);
-  const qTs = curve(dividendYield);
-  const s0 = new ql.Handle(new ql.SimpleQuote(spot));
-  const process = new ql.HestonProcess(rTs, qTs, s0, p.v0, p.kappa, p.theta, p.volOfVol, p.rho);
-  const engine = new ql.AnalyticHestonEngine().aheInit1(
-    new ql.HestonModel(process),
-    1e-13,
-    1_000_000,
-  );
-  return options.map((o) => {
-    const payoff = new ql.PlainVanillaPayoff(
-      o.type === 'call' ? ql.Option.Type.Call : ql.Option.Type.Put,
-      o.strike,
-    );
-    const exercise = new ql.EuropeanExercise(ql.DateExt.add(today, o.days));
-    const option = new ql.VanillaOption(payoff, exercise);
-    option.setPricingEngine(engine);
-    return option.NPV();
-  });
+  return npvs(hestonEngine(spot, rate, dividendYield, p), options);
 }
 
 export interface QlVolQuote {
