@@ -87,7 +87,7 @@ export function pnlHistogram(
   return { lo, hi, counts };
 }
 
-export function range(values: Float64Array): [number, number] {
+function range(values: Float64Array): [number, number] {
   let lo = Infinity;
   let hi = -Infinity;
   for (let i = 0; i < values.length; i++) {
@@ -95,4 +95,12 @@ export function range(values: Float64Array): [number, number] {
     if (values[i] > hi) hi = values[i];
   }
   return [lo, hi];
+}
+
+/** Histograms of several runs' P&L on shared bins over their joint range. */
+export function sharedHistograms(runs: Float64Array[], bins: number): PnlHistogram[] {
+  const ranges = runs.map(range);
+  const lo = Math.min(...ranges.map((r) => r[0]));
+  const hi = Math.max(...ranges.map((r) => r[1]));
+  return runs.map((pnl) => pnlHistogram(pnl, lo, hi, bins));
 }

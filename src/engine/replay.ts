@@ -230,33 +230,51 @@ export function tracePath(plan: ReplayPlan, path: number): PathTrace {
   return trace;
 }
 
-/** Puts blocks (in block order) together and summarises them, as one thread would. */
-export function combineReplay(
-  plan: Pick<ReplayPlan, 'request' | 'steps' | 'premium'>,
+/** One run's blocks end to end, in block order: every path's P&L and its jump-step part. */
+export function joinBlocks(
+  paths: number,
   blocks: { pnl: Float64Array; onJumps: Float64Array }[],
-  elapsedMs: number,
-): ReplayResult & { pnlByPath: Float64Array } {
-  const pnl = new Float64Array(plan.request.paths);
-  const onJumps = new Float64Array(plan.request.paths);
+): { pnl: Float64Array; onJumps: Float64Array } {
+  const pnl = new Float64Array(paths);
+  const onJumps = new Float64Array(paths);
   blocks.forEach((b, i) => {
     pnl.set(b.pnl, i * BLOCK_PATHS);
     onJumps.set(b.onJumps, i * BLOCK_PATHS);
   });
+  return { pnl, onJumps };
+}
+
+type RunMeta = Pick<ReplayPlan, 'request' | 'steps' | 'premium'>;
+
+export function replayResult(
+  meta: RunMeta,
+  pnl: Float64Array,
+  onJumps: Float64Array,
+  elapsedMs: number,
+): ReplayResult {
   return {
     ...summariseReplay(pnl, onJumps),
-    premium: plan.premium,
-    steps: plan.steps,
-    paths: plan.request.paths,
+    premium: meta.premium,
+    steps: meta.steps,
+    paths: meta.request.paths,
     elapsedMs,
-    pnlByPath: pnl,
   };
+}
+
+/** Puts blocks (in block order) together and summarises them, as one thread would. */
+export function combineReplay(
+  meta: RunMeta,
+  blocks: { pnl: Float64Array; onJumps: Float64Array }[],
+  elapsedMs: number,
+): ReplayResult & { pnlByPath: Float64Array } {
+  const { pnl, onJumps } = joinBlocks(meta.request.paths, blocks);
+  return { ...replayResult(meta, pnl, onJumps, elapsedMs), pnlByPath: pnl };
 }
 
 export function replay(req: ReplayRequest): ReplayResult {
   const started = performance.now();
   const plan = planReplay(req);
   const blocks = Array.from({ length: blockCountFor(req.paths) }, (_, b) => replayBlock(plan, b));
-  const result: Partial<ReturnType<typeof combineReplay>> = combineReplay(plan, blocks, 0);
-  delete result.pnlByPath;
-  return { ...(result as ReplayResult), elapsedMs: performance.now() - started };
+  const { pnl, onJumps } = joinBlocks(req.paths, blocks);
+  return replayResult(plan, pnl, onJumps, performance.now() - started);
 }

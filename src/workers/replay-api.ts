@@ -1,5 +1,6 @@
 /** The hedge replay worker: runs the blocks it is given and follows single paths. */
-import type { PathTrace, ReplayRequest } from '../engine/replay';
+import type { PathTrace, ReplayPlan, ReplayRequest, ReplayResult } from '../engine/replay';
+import type { PnlHistogram } from '../engine/replay-summary';
 
 export interface ReplayBlocksDone {
   pnl: Float64Array[];
@@ -8,7 +9,18 @@ export interface ReplayBlocksDone {
   steps: number;
 }
 
+export interface FinishedRun {
+  meta: Pick<ReplayPlan, 'request' | 'steps' | 'premium'>;
+  blocks: { pnl: Float64Array; onJumps: Float64Array }[];
+  elapsedMs: number;
+}
+
 export interface ReplayApi {
   runBlocks(request: ReplayRequest, blocks: number[], onBlock: () => void): ReplayBlocksDone;
   trace(request: ReplayRequest, path: number): PathTrace;
+  /** Joins and summarises runs (the sort for VaR and ES included) off the page's thread. */
+  finish(
+    runs: FinishedRun[],
+    bins: number,
+  ): { results: ReplayResult[]; histograms: PnlHistogram[] };
 }

@@ -1,20 +1,24 @@
 /**
  * Hedge replays on the worker pool. Several requests on the same paths (the same market, model,
  * seed and path count, different hedges) run one after another in one pool; each one's blocks
- * come back transferred and are combined in block order, so the answer does not depend on the
- * pool size. A separate long-lived worker follows single paths for drill-down.
+ * come back transferred and are combined in block order (in one of the workers), so the answer
+ * does not depend on the pool size. A separate long-lived worker follows single paths for drill-down.
  */
-import { proxy, wrap, type Remote } from 'comlink';
-import {
-  blockCountFor,
-  combineReplay,
-  type ReplayRequest,
-  type ReplayResult,
-} from '../engine/replay';
+import { proxy, transfer, wrap, type Remote } from 'comlink';
+import { blockCountFor, type ReplayRequest, type ReplayResult } from '../engine/replay';
 import { batches, poolSize, startPool, type PoolRun } from './block-pool';
-import type { ReplayApi } from './replay-api';
+import type { PnlHistogram } from '../engine/replay-summary';
+import type { FinishedRun, ReplayApi } from './replay-api';
 
-export type ReplayOutcome = ReplayResult & { pnlByPath: Float64Array; workers: number };
+export interface ReplayOutcome {
+  results: ReplayResult[];
+  /** one per request, on shared bins */
+  histograms: PnlHistogram[];
+  workers: number;
+}
+
+/** bins of the P&L histograms */
+const BINS = 60;
 
 const makeWorker = () =>
   new Worker(new URL('./replay.worker.ts', import.meta.url), {
@@ -26,17 +30,17 @@ export function runReplays(
   requests: ReplayRequest[],
   onProgress: (fraction: number) => void,
   size = poolSize(),
-): PoolRun<ReplayOutcome[]> {
+): PoolRun<ReplayOutcome> {
   const perRequest = requests.map((r) => blockCountFor(r.paths));
   const total = perRequest.reduce((a, b) => a + b, 0);
   let done = 0;
   const tick = proxy(() => onProgress(++done / total));
-  const run = startPool<ReplayApi, ReplayOutcome[]>(
+  const run = startPool<ReplayApi, ReplayOutcome>(
     makeWorker,
     size,
     Math.max(...perRequest),
     async (apis, queues) => {
-      const outcomes: ReplayOutcome[] = [];
+      const finished: FinishedRun[] = [];
       for (const request of requests) {
         const started = performance.now();
         const count = blockCountFor(request.paths);
@@ -57,12 +61,14 @@ export function runReplays(
           }),
         );
         const blocks = pnl.map((p, b) => ({ pnl: p, onJumps: onJumps[b] }));
-        outcomes.push({
-          ...combineReplay(meta, blocks, performance.now() - started),
-          workers: apis.length,
-        });
+        finished.push({ meta, blocks, elapsedMs: performance.now() - started });
       }
-      return outcomes;
+      // joining, sorting for VaR/ES and the histograms run in a worker, not on the page's thread
+      const buffers = finished.flatMap((f) =>
+        f.blocks.flatMap((b) => [b.pnl.buffer as ArrayBuffer, b.onJumps.buffer as ArrayBuffer]),
+      );
+      const { results, histograms } = await apis[0].finish(transfer(finished, buffers), BINS);
+      return { results, histograms, workers: apis.length };
     },
   );
   return run;

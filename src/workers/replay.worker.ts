@@ -1,5 +1,13 @@
 import { expose, transfer } from 'comlink';
-import { planReplay, replayBlock, tracePath, type ReplayPlan } from '../engine/replay';
+import {
+  joinBlocks,
+  planReplay,
+  replayBlock,
+  replayResult,
+  tracePath,
+  type ReplayPlan,
+} from '../engine/replay';
+import { sharedHistograms } from '../engine/replay-summary';
 import type { ReplayApi, ReplayBlocksDone } from './replay-api';
 
 // the plan (hedge table included) of the last request, reused while its blocks come in
@@ -30,6 +38,18 @@ const api: ReplayApi = {
   },
   trace(request, path) {
     return tracePath(planFor(request), path);
+  },
+  finish(runs, bins) {
+    const joined = runs.map((r) => joinBlocks(r.meta.request.paths, r.blocks));
+    return {
+      results: runs.map((r, i) =>
+        replayResult(r.meta, joined[i].pnl, joined[i].onJumps, r.elapsedMs),
+      ),
+      histograms: sharedHistograms(
+        joined.map((j) => j.pnl),
+        bins,
+      ),
+    };
   },
 };
 

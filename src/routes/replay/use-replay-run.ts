@@ -4,7 +4,7 @@
  */
 import { useCallback, useRef, useState } from 'react';
 import type { ReplayRequest, ReplayResult } from '../../engine/replay';
-import { pnlHistogram, range, type PnlHistogram } from '../../engine/replay-summary';
+import type { PnlHistogram } from '../../engine/replay-summary';
 import { appDb } from '../../store/db';
 import { cacheKey, getCached, putCached } from '../../store/result-cache';
 import { CancelledError } from '../../workers/fit-client';
@@ -20,13 +20,11 @@ export interface ReplayView {
   workers: number;
 }
 
-const BINS = 60;
-
 export function useReplayRun() {
   const [progress, setProgress] = useState<number | null>(null);
   const [view, setView] = useState<ReplayView | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const current = useRef<PoolRun<ReplayOutcome[]> | null>(null);
+  const current = useRef<PoolRun<ReplayOutcome> | null>(null);
 
   const start = useCallback(
     async (requests: ReplayRequest[], fresh = false): Promise<ReplayView | null> => {
@@ -44,16 +42,13 @@ export function useReplayRun() {
       const job = runReplays(requests, setProgress);
       current.current = job;
       try {
-        const outcomes = await job.result;
-        const ranges = outcomes.map((o) => range(o.pnlByPath));
-        const lo = Math.min(...ranges.map((r) => r[0]));
-        const hi = Math.max(...ranges.map((r) => r[1]));
+        const outcome = await job.result;
         const result: ReplayView = {
           requests,
-          results: outcomes.map(({ pnlByPath: _p, workers: _w, ...r }) => r),
-          histograms: outcomes.map((o) => pnlHistogram(o.pnlByPath, lo, hi, BINS)),
+          results: outcome.results,
+          histograms: outcome.histograms,
           fromCache: false,
-          workers: job.workers,
+          workers: outcome.workers,
         };
         setView(result);
         await putCached(appDb(), key, 'replay', result, JSON.stringify(result).length);
