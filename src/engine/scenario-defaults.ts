@@ -1,4 +1,5 @@
 /** A new scenario's starting point: a Bates market a trader would recognise as ordinary. */
+import type { Model } from './types';
 import { SCENARIO_FORMAT, type ScenarioDocument } from './schema';
 import { NO_STRESS } from './stress';
 
@@ -17,6 +18,19 @@ export function defaultMoneyness(points = 41, halfWidth = 0.3): number[] {
   return Array.from({ length: points }, (_, i) => -halfWidth + (2 * halfWidth * i) / (points - 1));
 }
 
+/** The model a new scenario starts from (also the benchmarks' model). */
+export const DEFAULT_BATES: Extract<Model, { kind: 'bates' }> = {
+  kind: 'bates',
+  v0: 0.04,
+  kappa: 1.5,
+  theta: 0.04,
+  volOfVol: 0.5,
+  rho: -0.7,
+  jumpIntensity: 0.5,
+  jumpMean: -0.1,
+  jumpStdev: 0.15,
+};
+
 export function newScenario(id: string, name: string, valuationDate: string): ScenarioDocument {
   return {
     format: SCENARIO_FORMAT,
@@ -25,17 +39,7 @@ export function newScenario(id: string, name: string, valuationDate: string): Sc
     notes: '',
     valuationDate,
     market: { spot: 100, rate: 0.03, dividendYield: 0.01 },
-    model: {
-      kind: 'bates',
-      v0: 0.04,
-      kappa: 1.5,
-      theta: 0.04,
-      volOfVol: 0.5,
-      rho: -0.7,
-      jumpIntensity: 0.5,
-      jumpMean: -0.1,
-      jumpStdev: 0.15,
-    },
+    model: { ...DEFAULT_BATES },
     stress: { ...NO_STRESS },
     grid: { expiries: TENORS.slice(0, 5).map((t) => t.years), moneyness: defaultMoneyness() },
     runs: [],

@@ -7,20 +7,11 @@ import { revalueSet, type BookScenario } from '../../src/engine/book-set';
 import type { Position } from '../../src/engine/positions';
 import { priceOptions } from '../../src/engine/pricing';
 import type { Market, Model } from '../../src/engine/types';
+import { DEFAULT_BATES } from '../../src/engine/scenario-defaults';
 import { fmt } from './timing';
 
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
-const model: Model = {
-  kind: 'bates',
-  v0: 0.04,
-  kappa: 1.5,
-  theta: 0.04,
-  volOfVol: 0.5,
-  rho: -0.7,
-  jumpIntensity: 0.5,
-  jumpMean: -0.1,
-  jumpStdev: 0.15,
-};
+const model: Model = DEFAULT_BATES;
 
 function book(legs: number, expiries: number): Position[] {
   return Array.from({ length: legs }, (_, i) => {

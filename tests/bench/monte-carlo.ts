@@ -15,20 +15,11 @@ import {
 import type { Market, Model } from '../../src/engine/types';
 import { quantlibMcBlackScholesCall } from '../support/quantlib';
 import { blocksInThreads } from './threads';
+import { DEFAULT_BATES } from '../../src/engine/scenario-defaults';
 import { fmt } from './timing';
 
 const market: Market = { spot: 100, rate: 0.02, dividendYield: 0.01 };
-const model: Model = {
-  kind: 'bates',
-  v0: 0.04,
-  kappa: 1.5,
-  theta: 0.04,
-  volOfVol: 0.5,
-  rho: -0.7,
-  jumpIntensity: 0.5,
-  jumpMean: -0.1,
-  jumpStdev: 0.15,
-};
+const model: Model = DEFAULT_BATES;
 const settings: SimulationSettings = {
   horizon: 1,
   stepsPerYear: 52,

@@ -5,21 +5,12 @@
 import { blockCountFor, combineReplay, replay, type ReplayRequest } from '../../src/engine/replay';
 import { blocksInThreads } from './threads';
 import type { Model } from '../../src/engine/types';
+import { DEFAULT_BATES } from '../../src/engine/scenario-defaults';
 import { fmt } from './timing';
 
 export async function benchReplay(): Promise<Record<string, string>[]> {
   const market = { spot: 100, rate: 0.02, dividendYield: 0.01 };
-  const model: Model = {
-    kind: 'bates',
-    v0: 0.04,
-    kappa: 1.5,
-    theta: 0.04,
-    volOfVol: 0.5,
-    rho: -0.7,
-    jumpIntensity: 0.5,
-    jumpMean: -0.1,
-    jumpStdev: 0.15,
-  };
+  const model: Model = DEFAULT_BATES;
   const position = [
     { type: 'put' as const, strike: 95, expiry: 30 / 365, quantity: -10 },
     { type: 'call' as const, strike: 105, expiry: 30 / 365, quantity: 5 },
