@@ -20,17 +20,19 @@ const own = {} as Record<Role, TestUser>;
 const other = {} as Record<Role, TestUser>;
 let stranger: TestUser;
 
+/** Joins the way people do: the lead invites, the mail arrives, its link is accepted. */
+async function join(lead: TestUser, deskId: string, user: TestUser, role: Role) {
+  await api.as(lead).post(`/api/desks/${deskId}/invites`, { email: user.email, role });
+  const link = await api.mail().linkFor(user.email, /invites you/);
+  const token = new URL(link).searchParams.get('token');
+  const accepted = await api.as(user).post('/api/invites/accept', { token });
+  expect(accepted.status).toBe(200);
+}
+
 async function deskWith(lead: TestUser, members: [TestUser, Role][]) {
   const desk = await api.as(lead).post('/api/desks', { name: `Desk ${lead.name}` });
-  // members join the way people do: by invite
-  for (const [user, role] of members) {
-    if (role === 'lead' && user === lead) continue;
-    await api.as(lead).post(`/api/desks/${desk.body.desk.id}/invites`, { email: user.email, role });
-    const link = await api.mail().linkFor(user.email, /invites you/);
-    const token = new URL(link).searchParams.get('token');
-    const accepted = await api.as(user).post('/api/invites/accept', { token });
-    expect(accepted.status).toBe(200);
-  }
+  for (const [user, role] of members)
+    if (!(role === 'lead' && user === lead)) await join(lead, desk.body.desk.id, user, role);
   return desk.body.desk.id as string;
 }
 
@@ -104,13 +106,7 @@ const routes: {
     run: async (u) => {
       // a fresh member to remove each time
       const victim = await api.user('victim');
-      await api
-        .as(own.lead)
-        .post(`/api/desks/${deskA}/invites`, { email: victim.email, role: 'analyst' });
-      const token = new URL(await api.mail().linkFor(victim.email, /invites you/)).searchParams.get(
-        'token',
-      );
-      await api.as(victim).post('/api/invites/accept', { token });
+      await join(own.lead, deskA, victim, 'analyst');
       return (await api.as(u).delete(`/api/desks/${deskA}/members/${victim.id}`)).status;
     },
     expected: (c) => (!c.ownDesk ? 404 : c.role === 'lead' ? 200 : 403),
@@ -277,11 +273,7 @@ describe('authorization matrix', () => {
 
   it('a role change takes effect on the next request (RELIABILITY.md promise 7)', async () => {
     const u = await api.user('demoted');
-    await api.as(own.lead).post(`/api/desks/${deskA}/invites`, { email: u.email, role: 'trader' });
-    const token = new URL(await api.mail().linkFor(u.email, /invites you/)).searchParams.get(
-      'token',
-    );
-    await api.as(u).post('/api/invites/accept', { token });
+    await join(own.lead, deskA, u, 'trader');
     const edit = async () =>
       (
         await api.as(u).post('/api/sync/push', {

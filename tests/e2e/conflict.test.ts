@@ -1,24 +1,15 @@
 import type { BrowserContext, Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { DEMO_SETS, DEMO_USERS } from '../../server/demo';
-import { appAndBrowser, trackErrors } from './harness';
+import { appAndBrowser, scenarioRow, signIn, syncStateOf, trackErrors } from './harness';
 
 const env = appAndBrowser();
 const shots = process.env.SALTATION_SHOTS;
 const [lead, trader] = DEMO_USERS;
 const shared = DEMO_SETS[0].scenarios[1];
 
-async function signIn(context: BrowserContext, who: { email: string; password: string }) {
-  const page = await context.newPage();
-  await page.goto(`${env.app().url}/signin`);
-  await page.getByLabel('E-mail').fill(who.email);
-  await page.getByLabel('Password').fill(who.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/library');
-  return page;
-}
-const row = (page: Page) => page.locator(`[data-testid="scenario-row"][data-id="${shared.id}"]`);
-const stateOf = (page: Page) => row(page).getByTestId('sync-state').getAttribute('data-state');
+const row = (page: Page) => scenarioRow(page, shared.id);
+const stateOf = (page: Page) => syncStateOf(page, shared.id);
 
 async function editOffline(context: BrowserContext, page: Page, intensity: string) {
   await row(page).getByRole('link', { name: shared.name }).click();
@@ -36,8 +27,8 @@ describe('a conflict in the browser', () => {
     const traderContext = await env
       .browser()
       .newContext({ viewport: { width: 1400, height: 1000 } });
-    const mine = await signIn(leadContext, lead);
-    const theirs = await signIn(traderContext, trader);
+    const mine = await signIn(env.app(), leadContext, lead);
+    const theirs = await signIn(env.app(), traderContext, trader);
     const errors = [...trackErrors(mine), ...trackErrors(theirs)];
     for (const p of [mine, theirs])
       await expect.poll(() => stateOf(p), { timeout: 30000 }).toBe('synced');

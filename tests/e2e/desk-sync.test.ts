@@ -1,31 +1,22 @@
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { DEMO_SETS, DEMO_USERS } from '../../server/demo';
-import { appAndBrowser, trackErrors } from './harness';
+import { appAndBrowser, scenarioRow, signIn, syncStateOf, trackErrors } from './harness';
 
 const env = appAndBrowser();
 const shots = process.env.SALTATION_SHOTS;
 const [, trader, analyst] = DEMO_USERS;
 const shared = DEMO_SETS[0].scenarios[0];
 
-async function signIn(context: BrowserContext, who: { email: string; password: string }) {
-  const page = await context.newPage();
-  await page.goto(`${env.app().url}/signin`);
-  await page.getByLabel('E-mail').fill(who.email);
-  await page.getByLabel('Password').fill(who.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/library');
-  return page;
-}
-const row = (page: Page) => page.locator(`[data-testid="scenario-row"][data-id="${shared.id}"]`);
-const stateOf = (page: Page) => row(page).getByTestId('sync-state').getAttribute('data-state');
+const row = (page: Page) => scenarioRow(page, shared.id);
+const stateOf = (page: Page) => syncStateOf(page, shared.id);
 
 describe('desk sync in the browser', () => {
   it('a trader edits a shared scenario offline and it syncs when back online; the analyst sees it and is refused an edit', async () => {
     const traderContext = await env
       .browser()
       .newContext({ viewport: { width: 1400, height: 1000 } });
-    const page = await signIn(traderContext, trader);
+    const page = await signIn(env.app(), traderContext, trader);
     const errors = trackErrors(page);
     await expect.poll(() => stateOf(page), { timeout: 30000 }).toBe('synced');
 
@@ -43,7 +34,7 @@ describe('desk sync in the browser', () => {
     const analystContext = await env
       .browser()
       .newContext({ viewport: { width: 1400, height: 1000 } });
-    const other = await signIn(analystContext, analyst);
+    const other = await signIn(env.app(), analystContext, analyst);
     const otherErrors = trackErrors(other);
     await expect.poll(() => stateOf(other), { timeout: 30000 }).toBe('synced');
     await row(other).getByRole('button', { name: 'History' }).click();

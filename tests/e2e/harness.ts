@@ -2,7 +2,7 @@
 import type { Server } from 'node:http';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../server/app';
 import { freePort } from '../../server/bootstrap/postgres';
@@ -73,3 +73,24 @@ export function appAndBrowser(): { app: () => RunningApp; browser: () => Browser
   });
   return { app: () => app!, browser: () => browser! };
 }
+
+/** Signs in through the sign-in page in a fresh tab of the context; resolves on the Library. */
+export async function signIn(
+  app: RunningApp,
+  context: BrowserContext,
+  who: { email: string; password: string },
+): Promise<Page> {
+  const page = await context.newPage();
+  await page.goto(`${app.url}/signin`);
+  await page.getByLabel('E-mail').fill(who.email);
+  await page.getByLabel('Password').fill(who.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL('**/library');
+  return page;
+}
+
+/** A scenario's row in the Library, and its sync state (the badge's data-state). */
+export const scenarioRow = (page: Page, id: string) =>
+  page.locator(`[data-testid="scenario-row"][data-id="${id}"]`);
+export const syncStateOf = (page: Page, id: string) =>
+  scenarioRow(page, id).getByTestId('sync-state').getAttribute('data-state');
