@@ -22,6 +22,12 @@ export interface SyncReport {
 }
 
 const PUSH_BATCH = 100;
+const COUNTED_AS = {
+  applied: 'applied',
+  conflict: 'conflicts',
+  denied: 'denied',
+  invalid: 'invalid',
+} as const satisfies Record<MutationResult['status'], keyof SyncReport>;
 const cursorKey = (userId: string) => `cursor:${userId}`;
 
 export async function syncOnce(
@@ -44,13 +50,7 @@ export async function syncOnce(
     const { results } = await transport.push(batch.map((p) => p.mutation));
     report.pushed += batch.length;
     for (const [k, result] of results.entries()) {
-      report[
-        result.status === 'applied'
-          ? 'applied'
-          : result.status === 'conflict'
-            ? 'conflicts'
-            : result.status
-      ]++;
+      report[COUNTED_AS[result.status]]++;
       await applyResult(db, batch[k], result);
     }
   }
