@@ -10,12 +10,18 @@ import {
 import { sharedHistograms } from '../engine/replay-summary';
 import type { ReplayApi, ReplayBlocksDone } from './replay-api';
 
-// the plan (hedge table included) of the last request, reused while its blocks come in
-let last: { key: string; plan: ReplayPlan } | null = null;
+// plans (hedge tables included) of the last few requests: a comparison traces two hedges of
+// one position in turn, and a one-entry cache rebuilt both tables on every drill-down
+const plans = new Map<string, ReplayPlan>();
 const planFor = (request: Parameters<ReplayApi['trace']>[0]) => {
   const key = JSON.stringify(request);
-  if (last?.key !== key) last = { key, plan: planReplay(request) };
-  return last.plan;
+  let plan = plans.get(key);
+  if (!plan) {
+    plan = planReplay(request);
+    if (plans.size >= 4) plans.delete(plans.keys().next().value!);
+    plans.set(key, plan);
+  }
+  return plan;
 };
 
 const api: ReplayApi = {
