@@ -215,6 +215,8 @@ export const simulationSettingsSchema = z
 
 /** The longest position a hedge replay takes, in years. */
 export const MAX_REPLAY_YEARS = 2;
+/** The most rebalances a replay takes (each one is a slice of the model's delta table). */
+export const MAX_REPLAY_REBALANCES = 3000;
 
 /** A hedge replay request, shared by the Replay page, its worker and the CLI. */
 export const replayRequestSchema = z
@@ -251,7 +253,15 @@ export const replayRequestSchema = z
   })
   .superRefine((r, ctx) => {
     const horizon = Math.max(...r.position.map((l) => l.expiry));
-    const steps = Math.max(1, Math.round(horizon * 365 * r.hedge.rebalancesPerDay)) * r.paths;
+    const rebalances = Math.max(1, Math.round(horizon * 365 * r.hedge.rebalancesPerDay));
+    // the model's value and delta table holds one slice (about 54 kB) per rebalance
+    if (rebalances > MAX_REPLAY_REBALANCES)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['hedge', 'rebalancesPerDay'],
+        message: `gives ${rebalances} rebalances until the last expiry; at most ${MAX_REPLAY_REBALANCES} (fewer a day, or a shorter position)`,
+      });
+    const steps = rebalances * r.paths;
     if (steps > 5e8)
       ctx.addIssue({
         code: 'custom',

@@ -126,12 +126,20 @@ describe('hedge replay', () => {
         { ...request, position: [{ type: 'put', strike: 95, expiry: 9, quantity: 1 }] },
         'position.0.expiry',
       ],
+      [
+        {
+          ...request,
+          position: [{ type: 'put', strike: 95, expiry: 2, quantity: 1 }],
+          hedge: { ...request.hedge, rebalancesPerDay: 96 },
+        },
+        'hedge.rebalancesPerDay',
+      ],
     ] as const) {
       const r = run(bad);
       expect(r.status).toBe(2);
       expect(JSON.parse(r.stderr).error.path).toBe(path);
     }
-  }, 60000); // six CLI processes, each building its own hedge table
+  }, 60000); // seven CLI processes, each building its own hedge table
 
   it('blocks run on separate plans, as separate workers run them, combine to the bits of one thread; a traced path ends at its P&L', () => {
     const request: ReplayRequest = {
