@@ -1,28 +1,23 @@
 /** The CLI commands over the engine; each validates its request and times only engine work. */
 import { z } from 'zod';
-import { priceOptions } from '../../src/engine/pricing';
-import { calibrate as calibrateModel } from '../../src/engine/calibrate';
-import { completeGuess, PARAMETERS } from '../../src/engine/calibration-space';
-import { discountFactor, forwardPrice } from '../../src/engine/market';
-import { impliedVol } from '../../src/engine/implied-vol';
+import { priceOptions } from '../../src/engine/analytic';
+import { calibrate as calibrateModel } from '../../src/engine/fit';
+import { completeGuess } from '../../src/engine/fit';
+import { parametersOf } from '../../src/engine/core';
+import { discountFactor, forwardPrice } from '../../src/engine/core';
+import { impliedVol } from '../../src/engine/analytic';
 import { bookTotal, ladderMoves, legRisks, legValuesAtMoves, sumRow } from '../../src/engine/book';
-import type { Position } from '../../src/engine/positions';
+import type { Position } from '../../src/engine/book';
 import { replay as replayHedge } from '../../src/engine/replay';
-import { simulate as simulatePaths } from '../../src/engine/simulate';
-import {
-  ladderSchema,
-  marketSchema,
-  modelSchema,
-  MAX_EXPIRY_YEARS,
-  positionsSchema,
-  replayRequestSchema,
-  simulationSettingsSchema,
-  stressSchema,
-} from '../../src/engine/schema';
-import { smileSurface, type SmileSurface } from '../../src/engine/smile';
-import { applyStress, isIdentityStress } from '../../src/engine/stress';
-import type { Market, Model, OptionSpec } from '../../src/engine/types';
-import { parseScenario } from '../../src/engine/validate-model';
+import { simulate as simulatePaths } from '../../src/engine/paths';
+import { marketSchema, modelSchema, MAX_EXPIRY_YEARS, stressSchema } from '../../src/engine/core';
+import { ladderSchema, positionsSchema } from '../../src/engine/book';
+import { simulationSettingsSchema } from '../../src/engine/paths';
+import { replayRequestSchema } from '../../src/engine/replay';
+import { smileSurface, type SmileSurface } from '../../src/engine/analytic';
+import { applyStress, isIdentityStress } from '../../src/engine/core';
+import type { Market, Model, OptionSpec } from '../../src/engine/core';
+import { parseScenario } from '../../src/engine/core';
 import { CliError } from './io';
 
 function parse<T>(schema: z.ZodType<T>, value: unknown): T {
@@ -200,7 +195,7 @@ export function calibrate(request: unknown) {
   const market = req.market as Market;
   const kind = req.model.kind;
   const fixed = req.model.fixed ?? [];
-  const unknownFixed = fixed.find((f) => !PARAMETERS[kind].includes(f));
+  const unknownFixed = fixed.find((f) => !(parametersOf(kind) as string[]).includes(f));
   if (unknownFixed)
     throw new CliError(
       'invalid-input',

@@ -6,7 +6,7 @@
  */
 import type { Knex } from 'knex';
 import { z } from 'zod';
-import { parseScenario } from '../../src/engine/validate-model';
+import { parseScenario } from '../../src/engine/core';
 import type { MutationResult } from '../../src/sync/protocol';
 import { canManage, canWrite, nextVersion, setStanding } from '../access';
 

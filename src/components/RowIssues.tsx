@@ -1,4 +1,4 @@
-import type { RowIssue } from '../engine/positions';
+import type { RowIssue } from '../engine/core';
 
 /** The rows a CSV upload rejected: line, field and reason. */
 export function RowIssues({ issues }: { issues: RowIssue[] }) {

@@ -4,8 +4,8 @@
  * source of truth while offline: every edit lands here first.
  */
 import Dexie, { type EntityTable } from 'dexie';
-import type { Position } from '../engine/positions';
-import type { ScenarioDocument } from '../engine/schema';
+import type { Position } from '../engine/book';
+import type { ScenarioDocument } from '../engine/core';
 import type { ServerCopy } from '../sync/protocol';
 
 export type SyncState = 'local' | 'synced' | 'pending' | 'conflict';

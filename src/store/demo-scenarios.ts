@@ -3,9 +3,9 @@
  * it has none: an index with a crash-prone short end and a single stock with earnings-like
  * jumps.
  */
-import { defaultMoneyness, TENORS } from '../engine/scenario-defaults';
-import { SCENARIO_FORMAT, type ScenarioDocument } from '../engine/schema';
-import { NO_STRESS } from '../engine/stress';
+import { defaultMoneyness, TENORS } from '../engine/core';
+import { SCENARIO_FORMAT, type ScenarioDocument } from '../engine/core';
+import { NO_STRESS } from '../engine/core';
 
 const grid = {
   expiries: TENORS.slice(0, 5).map((t) => t.years),

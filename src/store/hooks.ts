@@ -1,6 +1,6 @@
 /** TanStack Query over the local store, with explicit invalidation after writes. */
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ScenarioDocument } from '../engine/schema';
+import type { ScenarioDocument } from '../engine/core';
 import { nudgeSync } from '../sync/sync-loop';
 import { appDb } from './db';
 import { deleteScenario, getScenario, listScenarios, saveScenario } from './scenarios';

@@ -1,5 +1,5 @@
 /** Local scenario sets and their books. */
-import type { Position } from '../engine/positions';
+import type { Position } from '../engine/book';
 import type { LocalScenarioSet, SaltationDb } from './db';
 
 export function listSets(db: SaltationDb): Promise<LocalScenarioSet[]> {

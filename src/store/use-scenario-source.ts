@@ -1,7 +1,7 @@
 /** The scenario a tool page runs on (the chosen one, else the newest) and its stressed inputs. */
 import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
-import { applyStress } from '../engine/stress';
+import { applyStress } from '../engine/core';
 import { localScenariosQuery } from './hooks';
 
 export function useScenarioSource() {

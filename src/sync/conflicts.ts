@@ -2,7 +2,7 @@
  * Resolving a conflict between this device's edit and the server's revision: keep mine (put my
  * document on top of the server's revision), take theirs, or keep both (mine becomes a copy).
  */
-import type { ScenarioDocument } from '../engine/schema';
+import type { ScenarioDocument } from '../engine/core';
 import type { SaltationDb, StoredScenario } from '../store/db';
 import { saveCopy } from '../store/scenarios';
 

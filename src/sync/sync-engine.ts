@@ -7,7 +7,7 @@
  * Several edits of one scenario collapse into one mutation: the scenario's current document
  * on top of the revision this copy is based on, named by its newest outbox entry's id.
  */
-import type { ScenarioDocument } from '../engine/schema';
+import type { ScenarioDocument } from '../engine/core';
 import type { OutboxEntry, SaltationDb, StoredScenario } from '../store/db';
 import type { MutationResult, PullAnswer, PushMutation, SyncTransport } from './protocol';
 

@@ -1,13 +1,13 @@
 /** Every command the engine worker answers; the page side and the worker share this contract. */
-import type { SmileSurface } from '../engine/smile';
-import type { Stress } from '../engine/stress';
-import type { FieldIssue } from '../engine/validate-model';
+import type { SmileSurface } from '../engine/analytic';
+import type { Stress } from '../engine/core';
+import type { FieldIssue } from '../engine/core';
 import type { LadderSpec } from '../engine/book';
-import type { BookScenario, SetRevaluation } from '../engine/book-set';
-import type { Position } from '../engine/positions';
-import type { OptionResult } from '../engine/pricing';
-import type { ParameterSensitivity } from '../engine/sensitivity';
-import type { Market, Model, OptionSpec } from '../engine/types';
+import type { BookScenario, SetRevaluation } from '../engine/book';
+import type { Position } from '../engine/book';
+import type { OptionResult } from '../engine/analytic';
+import type { ParameterSensitivity } from '../engine/analytic';
+import type { Market, Model, OptionSpec } from '../engine/core';
 
 export interface PriceRequest {
   market: Market;

@@ -1,9 +1,9 @@
 /** The calibration worker's commands. Progress comes back through a callback (a comlink proxy). */
-import type { CalibrationRequest, CalibrationResult } from '../engine/calibrate';
-import type { JumpsVerdict } from '../engine/jumps-verdict';
-import type { TargetSolution, TargetVol } from '../engine/solve-to-targets';
-import type { Stress } from '../engine/stress';
-import type { Market, Model } from '../engine/types';
+import type { CalibrationRequest, CalibrationResult } from '../engine/fit';
+import type { JumpsVerdict } from '../engine/fit';
+import type { TargetSolution, TargetVol } from '../engine/fit';
+import type { Stress } from '../engine/core';
+import type { Market, Model } from '../engine/core';
 
 export interface TargetRequest {
   market: Market;

@@ -1,7 +1,7 @@
 import { expose } from 'comlink';
-import { calibrate } from '../engine/calibrate';
-import { jumpsVerdict } from '../engine/jumps-verdict';
-import { solveToTargets } from '../engine/solve-to-targets';
+import { calibrate } from '../engine/fit';
+import { jumpsVerdict } from '../engine/fit';
+import { solveToTargets } from '../engine/fit';
 import type { FitApi } from './fit-api';
 
 const api: FitApi = {

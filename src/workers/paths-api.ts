@@ -1,7 +1,7 @@
 /** The Monte Carlo worker: runs the blocks it is given and hands their sums back (transferred). */
-import type { PathsView } from '../engine/paths-view';
-import type { BlockSums, SimulationSettings } from '../engine/simulate';
-import type { Market, Model } from '../engine/types';
+import type { PathsView } from '../engine/paths';
+import type { BlockSums, SimulationSettings } from '../engine/paths';
+import type { Market, Model } from '../engine/core';
 
 export interface BlocksDone {
   sums: BlockSums[];

@@ -10,10 +10,10 @@ import {
   type BlockSums,
   type SimulationResult,
   type SimulationSettings,
-} from '../engine/simulate';
-import type { Market, Model } from '../engine/types';
+} from '../engine/paths';
+import type { Market, Model } from '../engine/core';
 import { batches, poolSize, startPool, type PoolRun } from './block-pool';
-import type { PathsView } from '../engine/paths-view';
+import type { PathsView } from '../engine/paths';
 import type { PathsApi } from './paths-api';
 
 export interface PathsOutcome {

@@ -1,6 +1,6 @@
 import { expose, transfer } from 'comlink';
-import { pathsView } from '../engine/paths-view';
-import { simulateBlock } from '../engine/simulate';
+import { pathsView } from '../engine/paths';
+import { simulateBlock } from '../engine/paths';
 import type { BlocksDone, PathsApi } from './paths-api';
 
 const api: PathsApi = {

@@ -7,7 +7,7 @@
 import { proxy, transfer, wrap, type Remote } from 'comlink';
 import { blockCountFor, type ReplayRequest, type ReplayResult } from '../engine/replay';
 import { batches, poolSize, startPool, type PoolRun } from './block-pool';
-import type { PnlHistogram } from '../engine/replay-summary';
+import type { PnlHistogram } from '../engine/replay';
 import type { FinishedRun, ReplayApi } from './replay-api';
 
 export interface ReplayOutcome {

@@ -7,7 +7,7 @@ import {
   tracePath,
   type ReplayPlan,
 } from '../engine/replay';
-import { sharedHistograms } from '../engine/replay-summary';
+import { sharedHistograms } from '../engine/replay';
 import type { ReplayApi, ReplayBlocksDone } from './replay-api';
 
 // plans (hedge tables included) of the last few requests: a comparison traces two hedges of

@@ -4,8 +4,8 @@
  * quotes in the same run. SSE in vol points for each, priced by the same engine for fairness.
  */
 import seedrandom from 'seedrandom';
-import { calibrate, modelVols, report, type VolQuote } from '../../src/engine/calibrate';
-import type { Market, Model } from '../../src/engine/types';
+import { calibrate, modelVols, report, type VolQuote } from '../../src/engine/fit';
+import type { Market, Model } from '../../src/engine/core';
 import { quantlibCalibrateHeston } from '../support/quantlib';
 import { fmt } from './timing';
 

@@ -3,6 +3,6 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { register } from 'tsx/esm/api';
 
 register();
-const { simulateBlock } = await import('../../src/engine/simulate.ts');
+const { simulateBlock } = await import('../../src/engine/paths/simulate.ts');
 const { blocks, market, model, settings } = workerData;
 parentPort.postMessage(blocks.map((b) => [b, simulateBlock(market, model, settings, b)]));

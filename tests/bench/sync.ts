@@ -14,7 +14,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { EmbeddedPostgres, freePort } from '../../server/bootstrap/postgres';
 import { DEMO_USERS } from '../../server/demo';
-import { newScenario } from '../../src/engine/scenario-defaults';
+import { newScenario } from '../../src/engine/core';
 import { fmt } from './timing';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));

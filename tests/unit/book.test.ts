@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { bookTotal, ladderMoves, legRisks, legValuesAtMoves, sumRow } from '../../src/engine/book';
-import { revalueSet, type BookScenario } from '../../src/engine/book-set';
-import type { Position } from '../../src/engine/positions';
-import type { Market, Model } from '../../src/engine/types';
+import { revalueSet, type BookScenario } from '../../src/engine/book';
+import type { Position } from '../../src/engine/book';
+import type { Market, Model } from '../../src/engine/core';
 
 const bates: Model = {
   kind: 'bates',

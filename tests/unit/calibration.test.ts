@@ -1,11 +1,11 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
-import { calibrate, modelVols, type VolQuote } from '../../src/engine/calibrate';
-import { impliedVol } from '../../src/engine/implied-vol';
-import { jumpsVerdict } from '../../src/engine/jumps-verdict';
-import { levenbergMarquardt } from '../../src/engine/levenberg-marquardt';
-import { discountFactor, forwardPrice } from '../../src/engine/market';
-import type { Market, Model } from '../../src/engine/types';
+import { calibrate, modelVols, type VolQuote } from '../../src/engine/fit';
+import { impliedVol } from '../../src/engine/analytic';
+import { jumpsVerdict } from '../../src/engine/fit';
+import { levenbergMarquardt } from '../../src/engine/fit';
+import { discountFactor, forwardPrice } from '../../src/engine/core';
+import type { Market, Model } from '../../src/engine/core';
 import { quantlibHestonPrices } from '../support/quantlib';
 
 const market: Market = { spot: 100, rate: 0.02, dividendYield: 0.01 };

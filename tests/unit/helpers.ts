@@ -1,7 +1,7 @@
 /** Small builders shared by the engine tests. */
-import { lewisPrice } from '../../src/engine/lewis';
-import { priceOptions } from '../../src/engine/pricing';
-import type { Market, Model, OptionType } from '../../src/engine/types';
+import { lewisPrice } from '../../src/engine/analytic';
+import { priceOptions } from '../../src/engine/analytic';
+import type { Market, Model, OptionType } from '../../src/engine/core';
 
 export function market(spot: number, rate = 0, dividendYield = 0): Market {
   return { spot, rate, dividendYield };

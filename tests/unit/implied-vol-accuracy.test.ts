@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { impliedVol } from '../../src/engine/implied-vol';
-import { lewisPrice } from '../../src/engine/lewis';
-import { discountFactor, forwardPrice } from '../../src/engine/market';
-import { priceOptions } from '../../src/engine/pricing';
-import type { Market, Model } from '../../src/engine/types';
+import { impliedVol } from '../../src/engine/analytic';
+import { lewisPrice } from '../../src/engine/analytic';
+import { discountFactor, forwardPrice } from '../../src/engine/core';
+import { priceOptions } from '../../src/engine/analytic';
+import type { Market, Model } from '../../src/engine/core';
 
 // The engine's implied vols against vols implied from the independent Lewis-integral prices,
 // for every model from 1 day to 10 years, including parameters at their limits.

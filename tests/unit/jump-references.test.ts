@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Model } from '../../src/engine/types';
+import type { Model } from '../../src/engine/core';
 import { cosPrice, lewisPrice, market } from './helpers';
 
 const merton = (

@@ -1,6 +1,6 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
-import { newScenario } from '../../src/engine/scenario-defaults';
+import { newScenario } from '../../src/engine/core';
 import { SaltationDb } from '../../src/store/db';
 import {
   deleteScenario,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parsePositionsCsv } from '../../src/engine/positions-csv';
+import { parsePositionsCsv } from '../../src/engine/book';
 
 const HEADER = 'id,type,strike,expiry,quantity,tradePrice';
 

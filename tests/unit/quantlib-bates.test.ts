@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { priceOptions } from '../../src/engine/pricing';
-import type { Model } from '../../src/engine/types';
+import { priceOptions } from '../../src/engine/analytic';
+import type { Model } from '../../src/engine/core';
 import { quantlibBatesPrices } from '../support/quantlib';
 
 // Outside reference: @quantlib/ql's Heston engine with the Bates jump term written out correctly

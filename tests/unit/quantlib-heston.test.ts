@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { priceOptions } from '../../src/engine/pricing';
-import type { Model } from '../../src/engine/types';
+import { priceOptions } from '../../src/engine/analytic';
+import type { Model } from '../../src/engine/core';
 import { quantlibHestonPrices, type QlHestonParams } from '../support/quantlib';
 
 // Outside reference: @quantlib/ql's AnalyticHestonEngine (adaptive Gauss-Lobatto, rel. tol 1e-13).

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { blackPrice } from '../../src/engine/black';
-import { parseQuotesCsv } from '../../src/engine/quotes-csv';
+import { blackPrice } from '../../src/engine/analytic';
+import { parseQuotesCsv } from '../../src/engine/fit';
 
 const market = { spot: 100, rate: 0, dividendYield: 0 };
 

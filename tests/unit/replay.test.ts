@@ -1,8 +1,8 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { buildHedgeTable, lookup } from '../../src/engine/hedge-table';
-import { priceOptions } from '../../src/engine/pricing';
+import { buildHedgeTable, lookup } from '../../src/engine/replay';
+import { priceOptions } from '../../src/engine/analytic';
 import {
   blockCountFor,
   combineReplay,
@@ -12,9 +12,9 @@ import {
   tracePath,
   type ReplayRequest,
 } from '../../src/engine/replay';
-import { discountFactor } from '../../src/engine/market';
-import { checkReplay, summaryOf, type SavedReplayRun } from '../../src/engine/replay-runs';
-import type { Model } from '../../src/engine/types';
+import { discountFactor } from '../../src/engine/core';
+import { checkReplay, summaryOf, type SavedReplayRun } from '../../src/engine/replay';
+import type { Model } from '../../src/engine/core';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const market = { spot: 100, rate: 0.02, dividendYield: 0 };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { newScenario } from '../../src/engine/scenario-defaults';
+import { newScenario } from '../../src/engine/core';
 import {
   parseScenarioFile,
   scenarioFileName,

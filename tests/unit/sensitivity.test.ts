@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { smileSensitivities } from '../../src/engine/sensitivity';
+import { smileSensitivities } from '../../src/engine/analytic';
 
 describe('smile sensitivities to model parameters', () => {
   it('under Black-Scholes, every point of the smile moves one for one with σ (closed form: ∂σ_impl/∂σ = 1)', () => {

@@ -1,17 +1,17 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { forwardPrice } from '../../src/engine/market';
-import { priceOptions } from '../../src/engine/pricing';
-import { simulationSettingsSchema } from '../../src/engine/schema';
+import { forwardPrice } from '../../src/engine/core';
+import { priceOptions } from '../../src/engine/analytic';
+import { simulationSettingsSchema } from '../../src/engine/paths';
 import {
   blockCount,
   combineBlocks,
   simulate,
   simulateBlock,
   type SimulationSettings,
-} from '../../src/engine/simulate';
-import type { Model } from '../../src/engine/types';
+} from '../../src/engine/paths';
+import type { Model } from '../../src/engine/core';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const base = (over: Partial<SimulationSettings>): SimulationSettings => ({

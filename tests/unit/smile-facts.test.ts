@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { smileSurface } from '../../src/engine/smile';
-import type { Model } from '../../src/engine/types';
+import { smileSurface } from '../../src/engine/analytic';
+import type { Model } from '../../src/engine/core';
 
 // Facts of the trade (common practice): how the Bates jump parameters shape the smile.
 // Measured at fixed moneyness: skew = σ(0.9F) − σ(1.1F), curvature = (σ(0.9F) + σ(1.1F))/2 − σ(F).

@@ -1,6 +1,6 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
-import type { SetRevaluation } from '../../engine/book-set';
+import type { SetRevaluation } from '../../engine/book';
 import { chartFrame, chartTheme } from '../chart-theme';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';

@@ -1,6 +1,6 @@
 import { useState } from 'react';
-import type { SetRevaluation } from '../../engine/book-set';
-import type { Position } from '../../engine/positions';
+import type { SetRevaluation } from '../../engine/book';
+import type { Position } from '../../engine/book';
 import { downloadText, toCsv } from '../sketch/csv';
 import { formatNumber } from '../format';
 

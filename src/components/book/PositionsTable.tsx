@@ -1,5 +1,5 @@
 import type { LegRisk } from '../../engine/book';
-import type { Position } from '../../engine/positions';
+import type { Position } from '../../engine/book';
 import { formatNumber, formatVol } from '../format';
 
 interface Props {

@@ -3,8 +3,8 @@ import {
   parsePositionsCsv,
   MAX_POSITIONS_FILE_BYTES,
   type ParsedPositions,
-} from '../../engine/positions-csv';
-import type { Position } from '../../engine/positions';
+} from '../../engine/book';
+import type { Position } from '../../engine/book';
 import { CsvInput } from '../CsvInput';
 import { RowIssues } from '../RowIssues';
 

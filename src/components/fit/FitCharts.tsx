@@ -1,6 +1,6 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
-import type { Residual } from '../../engine/calibrate';
+import type { Residual } from '../../engine/fit';
 import { chartFrame, chartTheme, panelTitle } from '../chart-theme';
 import { formatTenor } from '../format';
 import { PlotlyChart } from '../PlotlyChart';

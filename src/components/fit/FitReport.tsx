@@ -1,6 +1,6 @@
 import { useState } from 'react';
-import type { CalibrationResult } from '../../engine/calibrate';
-import type { JumpsVerdict } from '../../engine/jumps-verdict';
+import type { CalibrationResult } from '../../engine/fit';
+import type { JumpsVerdict } from '../../engine/fit';
 import { formatTenor } from '../format';
 
 /** Parameters, fit quality and flags of one calibration. */

@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { revisionsQuery } from '../../api/desks';
-import type { ScenarioDocument } from '../../engine/schema';
+import type { ScenarioDocument } from '../../engine/core';
 
 export function HistoryPanel({
   scenarioId,

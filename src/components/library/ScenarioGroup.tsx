@@ -1,7 +1,7 @@
 /** One group of the Library (a set, or this device only): its scenarios with their actions. */
 import { useState } from 'react';
 import { Link } from 'react-router';
-import type { ScenarioDocument } from '../../engine/schema';
+import type { ScenarioDocument } from '../../engine/core';
 import type { RemoteSet, StoredScenario } from '../../store/db';
 import { ConflictPanel } from './ConflictPanel';
 import { HistoryPanel } from './HistoryPanel';

@@ -1,6 +1,6 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
-import { FAN_PERCENTILES, type HistogramSpec, type PathsView } from '../../engine/paths-view';
+import { FAN_PERCENTILES, type HistogramSpec, type PathsView } from '../../engine/paths';
 import { chartFrame, chartTheme } from '../chart-theme';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';

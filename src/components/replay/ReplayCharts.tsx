@@ -2,7 +2,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { ReplayRequest, ReplayResult } from '../../engine/replay';
-import type { PnlHistogram } from '../../engine/replay-summary';
+import type { PnlHistogram } from '../../engine/replay';
 import { chartFrame, chartTheme } from '../chart-theme';
 import { PlotlyChart } from '../PlotlyChart';
 import { useTheme } from '../theme';

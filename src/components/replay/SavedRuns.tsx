@@ -1,6 +1,6 @@
 /** The replay runs saved in a scenario, each with Open and Replay, and the last check's verdict. */
-import type { ReplayCheck, SavedReplayRun } from '../../engine/replay-runs';
-import { runRequests } from '../../engine/replay-runs';
+import type { ReplayCheck, SavedReplayRun } from '../../engine/replay';
+import { runRequests } from '../../engine/replay';
 import { hedgeName } from './ReplayStats';
 
 export function SavedRuns({

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { TENORS } from '../../engine/scenario-defaults';
+import { TENORS } from '../../engine/core';
 import { formatTenor } from '../format';
 
 interface Props {

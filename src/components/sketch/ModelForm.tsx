@@ -1,8 +1,24 @@
 import type { ReactNode } from 'react';
-import type { Market, Model, ModelKind } from '../../engine/types';
-import { MODEL_KINDS } from '../../engine/types';
-import { convertModel, KIND_LABELS } from './model-kinds';
+import {
+  convertModel,
+  modelEntry,
+  modelLabel,
+  MODEL_KINDS,
+  parameterLabel,
+  parameterValue,
+  PARAMETER_SPECS,
+  type Market,
+  type Model,
+  type ModelKind,
+  type ParameterKey,
+  type ParameterSpec,
+} from '../../engine/core';
 import { NumberField } from './NumberField';
+
+/** What a field says under itself, where a raw value needs reading. */
+const HINTS: Partial<Record<ParameterKey, (x: number) => string>> = {
+  v0: (x) => `spot vol ${(100 * Math.sqrt(Math.max(x, 0))).toFixed(1)}%`,
+};
 
 interface Props {
   market: Market;
@@ -23,13 +39,21 @@ function Group({ title, children }: { title: string; children: ReactNode }) {
   );
 }
 
+function FellerNote({ model }: { model: Model }) {
+  const [kappa, theta, xi] = (['kappa', 'theta', 'volOfVol'] as const).map((k) =>
+    parameterValue(model, k),
+  );
+  const margin = 2 * kappa * theta - xi ** 2;
+  return (
+    <p className="text-xs text-muted" data-testid="feller">
+      Feller condition 2κθ ≥ ξ²: {margin >= 0 ? 'holds' : 'does not hold'} (
+      {(2 * kappa * theta).toFixed(3)} vs {(xi ** 2).toFixed(3)}); shown, not enforced.
+    </p>
+  );
+}
+
 export function ModelForm({ market, model, errors, onMarket, onModel }: Props) {
-  // one setter per field keeps the JSX short; `key` is a field of the current kind
   const set = (key: string) => (v: number) => onModel({ ...model, [key]: v } as Model);
-  const err = (key: string) => errors[`model.${key}`];
-  const hasHeston =
-    model.kind === 'heston' || model.kind === 'bates' || model.kind === 'heston-kou';
-  const feller = hasHeston ? 2 * model.kappa * model.theta - model.volOfVol ** 2 : null;
   return (
     <div className="space-y-4">
       <Group title="Market">
@@ -68,128 +92,33 @@ export function ModelForm({ market, model, errors, onMarket, onModel }: Props) {
         >
           {MODEL_KINDS.map((k) => (
             <option key={k} value={k}>
-              {KIND_LABELS[k]}
+              {modelLabel(k)}
             </option>
           ))}
         </select>
       </label>
-      {(model.kind === 'black-scholes' || model.kind === 'merton') && (
-        <Group title="Diffusion">
-          <NumberField
-            label="Volatility σ"
-            value={model.sigma}
-            scale={100}
-            unit="%"
-            step={0.5}
-            error={err('sigma')}
-            onChange={set('sigma')}
-          />
+      {modelEntry(model.kind).groups.map((group) => (
+        <Group key={group.title} title={group.title}>
+          {group.parameters.map((key) => {
+            const spec: ParameterSpec = PARAMETER_SPECS[key];
+            const value = parameterValue(model, key);
+            return (
+              <NumberField
+                key={key}
+                label={parameterLabel(key)}
+                value={value}
+                step={spec.step}
+                scale={spec.display?.scale}
+                unit={spec.display?.unit}
+                hint={HINTS[key]?.(value)}
+                error={errors[`model.${key}`]}
+                onChange={set(key)}
+              />
+            );
+          })}
+          {group.role === 'variance' && <FellerNote model={model} />}
         </Group>
-      )}
-      {hasHeston && (
-        <Group title="Variance">
-          <NumberField
-            label="Initial variance v₀"
-            value={model.v0}
-            step={0.005}
-            error={err('v0')}
-            hint={`spot vol ${(100 * Math.sqrt(Math.max(model.v0, 0))).toFixed(1)}%`}
-            onChange={set('v0')}
-          />
-          <NumberField
-            label="Mean reversion κ"
-            value={model.kappa}
-            step={0.1}
-            error={err('kappa')}
-            onChange={set('kappa')}
-          />
-          <NumberField
-            label="Long-run variance θ"
-            value={model.theta}
-            step={0.005}
-            error={err('theta')}
-            onChange={set('theta')}
-          />
-          <NumberField
-            label="Vol of vol ξ"
-            value={model.volOfVol}
-            step={0.05}
-            error={err('volOfVol')}
-            onChange={set('volOfVol')}
-          />
-          <NumberField
-            label="Correlation ρ"
-            value={model.rho}
-            step={0.05}
-            error={err('rho')}
-            onChange={set('rho')}
-          />
-          {feller !== null && (
-            <p className="text-xs text-muted" data-testid="feller">
-              Feller condition 2κθ ≥ ξ²: {feller >= 0 ? 'holds' : 'does not hold'} (
-              {(2 * model.kappa * model.theta).toFixed(3)} vs {(model.volOfVol ** 2).toFixed(3)});
-              shown, not enforced.
-            </p>
-          )}
-        </Group>
-      )}
-      {(model.kind === 'merton' || model.kind === 'bates') && (
-        <Group title="Jumps (lognormal)">
-          <NumberField
-            label="Intensity λ (per year)"
-            value={model.jumpIntensity}
-            step={0.1}
-            error={err('jumpIntensity')}
-            onChange={set('jumpIntensity')}
-          />
-          <NumberField
-            label="Mean log-jump μJ"
-            value={model.jumpMean}
-            step={0.01}
-            error={err('jumpMean')}
-            onChange={set('jumpMean')}
-          />
-          <NumberField
-            label="Jump spread σJ"
-            value={model.jumpStdev}
-            step={0.01}
-            error={err('jumpStdev')}
-            onChange={set('jumpStdev')}
-          />
-        </Group>
-      )}
-      {model.kind === 'heston-kou' && (
-        <Group title="Jumps (double-exponential)">
-          <NumberField
-            label="Intensity λ (per year)"
-            value={model.jumpIntensity}
-            step={0.1}
-            error={err('jumpIntensity')}
-            onChange={set('jumpIntensity')}
-          />
-          <NumberField
-            label="Up probability p"
-            value={model.upProbability}
-            step={0.05}
-            error={err('upProbability')}
-            onChange={set('upProbability')}
-          />
-          <NumberField
-            label="Mean up log-jump"
-            value={model.upMean}
-            step={0.01}
-            error={err('upMean')}
-            onChange={set('upMean')}
-          />
-          <NumberField
-            label="Mean down log-jump"
-            value={model.downMean}
-            step={0.01}
-            error={err('downMean')}
-            onChange={set('downMean')}
-          />
-        </Group>
-      )}
+      ))}
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import type { ParameterSensitivity } from '../../engine/sensitivity';
+import type { ParameterSensitivity } from '../../engine/analytic';
 
 interface Props {
   sensitivities: ParameterSensitivity[];

@@ -1,8 +1,8 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
-import { normCdf } from '../../engine/normal';
-import type { SmileSlice, SmileSurface } from '../../engine/smile';
-import type { TargetVol } from '../../engine/solve-to-targets';
+import { normCdf } from '../../engine/analytic';
+import type { SmileSlice, SmileSurface } from '../../engine/analytic';
+import type { TargetVol } from '../../engine/fit';
 import { chartFrame, chartTheme } from '../chart-theme';
 import { useTheme } from '../theme';
 import { formatTenor } from '../format';

@@ -1,5 +1,5 @@
-import type { OptionResult } from '../../engine/pricing';
-import type { SmileSlice } from '../../engine/smile';
+import type { OptionResult } from '../../engine/analytic';
+import type { SmileSlice } from '../../engine/analytic';
 import { formatNumber, formatSigned, formatTenor, formatVol } from '../format';
 import { downloadText, toCsv } from './csv';
 

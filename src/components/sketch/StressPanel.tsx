@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { NO_STRESS, type Stress } from '../../engine/stress';
+import { NO_STRESS, type Stress } from '../../engine/core';
 
 interface Control {
   key: keyof Stress;

@@ -1,7 +1,8 @@
 import { useRef, useState } from 'react';
 import { useNavigate } from 'react-router';
-import type { ScenarioDocument } from '../../engine/schema';
-import type { TargetVol } from '../../engine/solve-to-targets';
+import type { ScenarioDocument } from '../../engine/core';
+import { hasJumps } from '../../engine/core';
+import type { TargetVol } from '../../engine/fit';
 import { useSaveScenario } from '../../store/hooks';
 import { CancelledError, runFit, type FitJob } from '../../workers/fit-client';
 import { formatTenor } from '../format';
@@ -23,8 +24,7 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
   const job = useRef<FitJob<unknown> | null>(null);
   const save = useSaveScenario();
   const navigate = useNavigate();
-  const hasJumps =
-    doc.model.kind === 'bates' || doc.model.kind === 'merton' || doc.model.kind === 'heston-kou';
+  const withJumps = hasJumps(doc.model.kind);
 
   const add = () => {
     const kk = Number(k);
@@ -81,7 +81,7 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
       <legend className="text-xs font-semibold uppercase tracking-wide text-muted">
         Target vols
       </legend>
-      {!hasJumps && (
+      {!withJumps && (
         <p className="text-xs text-muted">Choose a model with jumps to solve for them.</p>
       )}
       <div className="grid grid-cols-[4.5rem_1fr_1fr_auto] items-end gap-1 text-xs">
@@ -159,7 +159,7 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
         </label>
         <button
           type="button"
-          disabled={!hasJumps || targets.length === 0 || progress !== null}
+          disabled={!withJumps || targets.length === 0 || progress !== null}
           onClick={solve}
           className="ml-auto rounded bg-teal px-3 py-1 font-semibold text-paper disabled:opacity-50"
         >

@@ -1,6 +1,6 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
-import type { SmileSurface } from '../../engine/smile';
+import type { SmileSurface } from '../../engine/analytic';
 import { chartFrame, chartTheme, panelTitle } from '../chart-theme';
 import { useTheme } from '../theme';
 import { formatTenor } from '../format';

@@ -8,7 +8,7 @@ import { PositionsUpload } from '../../components/book/PositionsUpload';
 import { SetPanel } from '../../components/book/SetPanel';
 import { CautionNote } from '../../components/CautionNote';
 import { formatNumber } from '../../components/format';
-import type { Position } from '../../engine/positions';
+import type { Position } from '../../engine/book';
 import type { StoredScenario } from '../../store/db';
 import { localScenariosQuery } from '../../store/hooks';
 import { DEFAULT_LADDER, setsQuery, useCreateSet, useRevaluation, useUpdateSet } from './use-book';

@@ -7,8 +7,8 @@ import {
   useQueryClient,
 } from '@tanstack/react-query';
 import type { LadderSpec } from '../../engine/book';
-import type { BookScenario } from '../../engine/book-set';
-import type { Position } from '../../engine/positions';
+import type { BookScenario } from '../../engine/book';
+import type { Position } from '../../engine/book';
 import { appDb, type LocalScenarioSet, type StoredScenario } from '../../store/db';
 import { createSet, listSets, updateSet } from '../../store/sets';
 import { engineWorker } from '../../workers/engine-client';

@@ -8,11 +8,12 @@ import { CsvInput } from '../../components/CsvInput';
 import { FitCharts, ResidualMap } from '../../components/fit/FitCharts';
 import { ParameterTable, ResidualTable, VerdictPanel } from '../../components/fit/FitReport';
 import { RowIssues } from '../../components/RowIssues';
-import type { CalibrationResult } from '../../engine/calibrate';
-import { completeGuess, PARAMETERS } from '../../engine/calibration-space';
-import type { JumpsVerdict } from '../../engine/jumps-verdict';
-import { MAX_QUOTES_FILE_BYTES, parseQuotesCsv, type ParsedQuotes } from '../../engine/quotes-csv';
-import type { ModelKind } from '../../engine/types';
+import type { CalibrationResult } from '../../engine/fit';
+import { completeGuess } from '../../engine/fit';
+import { parametersOf } from '../../engine/core';
+import type { JumpsVerdict } from '../../engine/fit';
+import { MAX_QUOTES_FILE_BYTES, parseQuotesCsv, type ParsedQuotes } from '../../engine/fit';
+import type { ModelKind } from '../../engine/core';
 import { localScenariosQuery, useSaveScenario } from '../../store/hooks';
 import { CancelledError, runFit, type FitJob } from '../../workers/fit-client';
 
@@ -55,7 +56,7 @@ export function FitPage() {
     const base = {
       market: source.document.market,
       quotes,
-      fixed: fixed.filter((f) => PARAMETERS[kind].includes(f)),
+      fixed: fixed.filter((f) => (parametersOf(kind) as string[]).includes(f)),
       weights,
     };
     const guess = completeGuess(kind, source.document.model as unknown as Record<string, unknown>);
@@ -144,7 +145,7 @@ export function FitPage() {
               Hold fixed
             </legend>
             <div className="flex flex-wrap gap-x-3">
-              {PARAMETERS[kind].map((p) => (
+              {parametersOf(kind).map((p) => (
                 <label key={p} className="flex items-center gap-1">
                   <input
                     type="checkbox"

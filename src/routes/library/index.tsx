@@ -5,7 +5,7 @@ import { meQuery } from '../../api/session';
 import { Notice } from '../../components/Notice';
 import { ScenarioGroup, type RowActions } from '../../components/library/ScenarioGroup';
 import { SetsPanel } from '../../components/library/SetsPanel';
-import { newScenario } from '../../engine/scenario-defaults';
+import { newScenario } from '../../engine/core';
 import { appDb } from '../../store/db';
 import { localScenariosQuery, remoteSetsQuery, useSaveScenario } from '../../store/hooks';
 import { parseScenarioFile, scenarioFileName, scenarioFileText } from '../../store/scenario-files';

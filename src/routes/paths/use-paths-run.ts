@@ -1,9 +1,9 @@
 /** One Monte Carlo run on the Paths page: from the cache when the same inputs ran before. */
 import { useCallback, useRef, useState } from 'react';
-import { forwardPrice } from '../../engine/market';
-import { terminalBins, type HistogramSpec, type PathsView } from '../../engine/paths-view';
-import type { SimulationResult, SimulationSettings } from '../../engine/simulate';
-import type { Market, Model } from '../../engine/types';
+import { forwardPrice } from '../../engine/core';
+import { terminalBins, type HistogramSpec, type PathsView } from '../../engine/paths';
+import type { SimulationResult, SimulationSettings } from '../../engine/paths';
+import type { Market, Model } from '../../engine/core';
 import { appDb } from '../../store/db';
 import { cacheKey, getCached, putCached } from '../../store/result-cache';
 import { engineWorker } from '../../workers/engine-client';

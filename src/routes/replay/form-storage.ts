@@ -1,5 +1,5 @@
 /** The Replay form survives reloads on this device; a saved run can be opened into it. */
-import type { SavedReplayRun } from '../../engine/replay-runs';
+import type { SavedReplayRun } from '../../engine/replay';
 import type { HedgeSettings } from '../../engine/replay';
 import type { HedgeForm, ReplayForm } from './replay-form';
 

@@ -18,8 +18,8 @@ import {
   summaryOf,
   type ReplayCheck,
   type SavedReplayRun,
-} from '../../engine/replay-runs';
-import { ENGINE_VERSION } from '../../engine/version';
+} from '../../engine/replay';
+import { ENGINE_VERSION } from '../../engine/core';
 import { useSaveScenario } from '../../store/hooks';
 import { useScenarioSource } from '../../store/use-scenario-source';
 import { formFromRun, loadForm, storeForm } from './form-storage';

@@ -1,8 +1,8 @@
 /** The Replay page's form, kept as typed text, and its translation into validated requests. */
 import type { LegRow } from '../../components/replay/LegsTable';
 import type { HedgeSettings, ReplayRequest } from '../../engine/replay';
-import { replayRequestSchema } from '../../engine/schema';
-import type { Market, Model } from '../../engine/types';
+import { replayRequestSchema } from '../../engine/replay';
+import type { Market, Model } from '../../engine/core';
 
 export interface HedgeForm {
   method: HedgeSettings['method'];

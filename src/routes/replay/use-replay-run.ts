@@ -4,7 +4,7 @@
  */
 import { useCallback, useRef, useState } from 'react';
 import type { ReplayRequest, ReplayResult } from '../../engine/replay';
-import type { PnlHistogram } from '../../engine/replay-summary';
+import type { PnlHistogram } from '../../engine/replay';
 import { appDb } from '../../store/db';
 import { cacheKey, getCached, putCached } from '../../store/result-cache';
 import { CancelledError } from '../../workers/fit-client';

@@ -9,11 +9,11 @@ import { AXIS_LABEL, SmileChart, type AxisMode } from '../../components/sketch/S
 import { SmileTable } from '../../components/sketch/SmileTable';
 import { StressPanel } from '../../components/sketch/StressPanel';
 import { TermStructureChart } from '../../components/sketch/TermStructureChart';
-import { NO_STRESS, type Stress } from '../../engine/stress';
-import type { OptionSpec } from '../../engine/types';
+import { NO_STRESS, type Stress } from '../../engine/core';
+import type { OptionSpec } from '../../engine/core';
 import { ScenarioPicker } from '../../components/sketch/ScenarioPicker';
 import { TargetVols } from '../../components/sketch/TargetVols';
-import type { TargetVol } from '../../engine/solve-to-targets';
+import type { TargetVol } from '../../engine/fit';
 import { SensitivityTable } from '../../components/sketch/SensitivityTable';
 import { smileRequest, useGreeks, useSensitivities, useSmiles } from './use-smiles';
 import { useSketchScenario, type SaveState } from './use-sketch-scenario';

@@ -6,10 +6,10 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useSearchParams } from 'react-router';
-import type { ScenarioDocument } from '../../engine/schema';
-import { parseScenario } from '../../engine/validate-model';
+import type { ScenarioDocument } from '../../engine/core';
+import { parseScenario } from '../../engine/core';
 import { appDb } from '../../store/db';
-import { newScenario } from '../../engine/scenario-defaults';
+import { newScenario } from '../../engine/core';
 import { seedDemoScenariosOnce } from '../../store/demo-seed';
 import { getScenario, listScenarios, saveScenario } from '../../store/scenarios';
 import { nudgeSync } from '../../sync/sync-loop';

@@ -1,7 +1,7 @@
 /** Smiles and Greeks for the current scenario, computed in the engine worker. */
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import type { ScenarioDocument } from '../../engine/schema';
-import type { Market, Model, OptionSpec } from '../../engine/types';
+import type { ScenarioDocument } from '../../engine/core';
+import type { Market, Model, OptionSpec } from '../../engine/core';
 import { engineWorker } from '../../workers/engine-client';
 import type { SmileRequest } from '../../workers/engine-api';
 

@@ -1,0 +1,244 @@
+/**
+ * Log characteristic functions of Y = ln(S_T / F_T) (the log-return over the forward, so that
+ * E[e^Y] = 1) for every model, at complex arguments. Everything is written in w = iu, i.e.
+ * ln E[e^{wY}]: w = i·u for the Fourier transform (COS), w = ½ + i·u for the Lewis integral,
+ * real w for moments. Complex arithmetic is inlined on (re, im) pairs: this is the hot loop.
+ */
+import type { Diffusion, JumpLaw, ModelSpec } from '../core/model-spec';
+
+export { modelSpec } from '../core/models';
+export type { Diffusion, JumpLaw, ModelSpec } from '../core/model-spec';
+
+/**
+ * Writes ln E[e^{wY}] for w = wr[j] + i·wi[j], j < count, into (outRe, outIm).
+ */
+export function logCharacteristic(
+  spec: ModelSpec,
+  T: number,
+  wr: Float64Array,
+  wi: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+  count: number,
+): void {
+  const d = spec.diffusion;
+  if (d.type === 'constant') {
+    const half = 0.5 * d.variance * T;
+    for (let j = 0; j < count; j++) {
+      const a = wr[j];
+      const b = wi[j];
+      // ½σ²T (w² − w)
+      outRe[j] = half * (a * a - b * b - a);
+      outIm[j] = half * (2 * a * b - b);
+    }
+  } else {
+    hestonLogCf(d, T, wr, wi, outRe, outIm, count);
+  }
+  const jl = spec.jumps;
+  if (jl.type === 'lognormal' && jl.jumpIntensity > 0)
+    addLognormalJumps(jl, T, wr, wi, outRe, outIm, count);
+  if (jl.type === 'double-exponential' && jl.jumpIntensity > 0) {
+    addDoubleExponentialJumps(jl, T, wr, wi, outRe, outIm, count);
+  }
+}
+
+/**
+ * Heston in the "little Heston trap" form (Albrecher, Mayer, Schoutens & Tistaert 2007), with
+ * the ξ² divisions cancelled analytically so ξ → 0 (and ξ = 0) is exact:
+ *   β = κ − ρξw, q = w − w², d = √(β² + ξ²q), g = (β − d)/(β + d) = −ξ²q/(β + d)²,
+ *   D = −q/(β + d) · (1 − e^{−dT})/(1 − g e^{−dT}),
+ *   C = κθ [−qT/(β + d) − (2/ξ²) ln(1 + g(1 − e^{−dT})/(1 − g))],   ln φ = C + D·v0.
+ */
+function hestonLogCf(
+  h: Extract<Diffusion, { type: 'heston' }>,
+  T: number,
+  wr: Float64Array,
+  wi: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+  count: number,
+): void {
+  const { v0, kappa, theta, volOfVol: xi, rho } = h;
+  const xi2 = xi * xi;
+  const kt = kappa * theta;
+  for (let j = 0; j < count; j++) {
+    const a = wr[j];
+    const b = wi[j];
+    if (a === 0 && b === 0) {
+      outRe[j] = 0;
+      outIm[j] = 0;
+      continue;
+    }
+    // q = w − w²
+    const qr = a - (a * a - b * b);
+    const qi = b - 2 * a * b;
+    // β = κ − ρξw
+    const br = kappa - rho * xi * a;
+    const bi = -rho * xi * b;
+    // d = √(β² + ξ² q), principal branch (Re d ≥ 0)
+    const zr = br * br - bi * bi + xi2 * qr;
+    const zi = 2 * br * bi + xi2 * qi;
+    const mod = Math.sqrt(zr * zr + zi * zi);
+    let dr: number, di: number;
+    if (zr >= 0) {
+      dr = Math.sqrt(0.5 * (mod + zr));
+      di = dr > 0 ? zi / (2 * dr) : 0;
+    } else {
+      di = Math.sqrt(0.5 * (mod - zr));
+      if (zi < 0) di = -di;
+      dr = zi / (2 * di);
+    }
+    // s = β + d and its inverse
+    const sr = br + dr;
+    const si = bi + di;
+    const sm = sr * sr + si * si;
+    const isr = sr / sm;
+    const isi = -si / sm;
+    // m = −q/s
+    const mr = -(qr * isr - qi * isi);
+    const mi = -(qr * isi + qi * isr);
+    // gHat = g/ξ² = m/s
+    const ghr = mr * isr - mi * isi;
+    const ghi = mr * isi + mi * isr;
+    const gr = xi2 * ghr;
+    const gi = xi2 * ghi;
+    // e = e^{−dT}; om = 1 − e = −expm1(−dT)
+    const er0 = Math.exp(-dr * T);
+    const c = Math.cos(di * T);
+    const sn = Math.sin(di * T);
+    const er = er0 * c;
+    const ei = -er0 * sn;
+    let omr: number;
+    if (dr * T < 1e-3 && Math.abs(di * T) < 1e-3) {
+      // near dT = 0, 1 − Re e^{−dT} cancels: use expm1 and 1 − cos x = 2 sin²(x/2)
+      const sHalf = Math.sin(0.5 * di * T);
+      omr = -(Math.expm1(-dr * T) * c - 2 * sHalf * sHalf);
+    } else {
+      omr = 1 - er;
+    }
+    const omi = -ei;
+    // den = 1 − g e
+    const denr = 1 - (gr * er - gi * ei);
+    const deni = -(gr * ei + gi * er);
+    const dm = denr * denr + deni * deni;
+    // D = m · om / den
+    const nr = mr * omr - mi * omi;
+    const ni = mr * omi + mi * omr;
+    const Dr = (nr * denr + ni * deni) / dm;
+    const Di = (ni * denr - nr * deni) / dm;
+    // zHat = gHat · om / (1 − g)
+    const ogr = 1 - gr;
+    const ogi = -gi;
+    const ogm = ogr * ogr + ogi * ogi;
+    const tr = ghr * omr - ghi * omi;
+    const ti = ghr * omi + ghi * omr;
+    const zhr = (tr * ogr + ti * ogi) / ogm;
+    const zhi = (ti * ogr - tr * ogi) / ogm;
+    // L = log1p(ξ² zHat) / (ξ² zHat), so (2/ξ²) log1p(ξ² zHat) = 2 zHat L
+    const ur = xi2 * zhr;
+    const ui = xi2 * zhi;
+    let Lr: number, Li: number;
+    const um = ur * ur + ui * ui;
+    if (um < 1e-16) {
+      // 1 − u/2 + u²/3
+      Lr = 1 - 0.5 * ur + (ur * ur - ui * ui) / 3;
+      Li = -0.5 * ui + (2 * ur * ui) / 3;
+    } else {
+      const lr = 0.5 * Math.log1p(2 * ur + um);
+      const li = Math.atan2(ui, 1 + ur);
+      Lr = (lr * ur + li * ui) / um;
+      Li = (li * ur - lr * ui) / um;
+    }
+    const logr = 2 * (zhr * Lr - zhi * Li);
+    const logi = 2 * (zhr * Li + zhi * Lr);
+    // C = κθ (m T − 2 zHat L)
+    const Cr = kt * (mr * T - logr);
+    const Ci = kt * (mi * T - logi);
+    outRe[j] = Cr + v0 * Dr;
+    outIm[j] = Ci + v0 * Di;
+  }
+}
+
+/** Merton (1976) jumps: λT(e^{wμ + ½δ²w²} − 1) − wλT(e^{μ + ½δ²} − 1). */
+function addLognormalJumps(
+  jl: Extract<JumpLaw, { type: 'lognormal' }>,
+  T: number,
+  wr: Float64Array,
+  wi: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+  count: number,
+): void {
+  const lt = jl.jumpIntensity * T;
+  const mu = jl.jumpMean;
+  const hv = 0.5 * jl.jumpStdev * jl.jumpStdev;
+  const kbar = Math.expm1(mu + hv);
+  for (let j = 0; j < count; j++) {
+    const a = wr[j];
+    const b = wi[j];
+    const er = mu * a + hv * (a * a - b * b);
+    const ei = mu * b + hv * 2 * a * b;
+    const m = Math.exp(er);
+    // e^{e} − 1, with expm1 for the real part when the imaginary part is small
+    const sHalf = Math.sin(0.5 * ei);
+    const xr = Math.expm1(er) * Math.cos(ei) - 2 * sHalf * sHalf;
+    const xi = m * Math.sin(ei);
+    outRe[j] += lt * (xr - a * kbar);
+    outIm[j] += lt * (xi - b * kbar);
+  }
+}
+
+/**
+ * Kou (2002) double-exponential jumps with up probability p, mean sizes m1 = 1/η1, m2 = 1/η2:
+ * λT(p/(1 − w m1) + (1 − p)/(1 + w m2) − 1) − wλTζ, ζ = p/(1 − m1) + (1 − p)/(1 + m2) − 1.
+ */
+function addDoubleExponentialJumps(
+  jl: Extract<JumpLaw, { type: 'double-exponential' }>,
+  T: number,
+  wr: Float64Array,
+  wi: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+  count: number,
+): void {
+  const lt = jl.jumpIntensity * T;
+  const { upProbability: p, upMean: m1, downMean: m2 } = jl;
+  const zeta = p / (1 - m1) + (1 - p) / (1 + m2) - 1;
+  for (let j = 0; j < count; j++) {
+    const a = wr[j];
+    const b = wi[j];
+    // p/(1 − w m1) − p = p w m1 / (1 − w m1)
+    const d1r = 1 - a * m1;
+    const d1i = -b * m1;
+    const d1m = d1r * d1r + d1i * d1i;
+    const n1r = p * m1 * a;
+    const n1i = p * m1 * b;
+    const t1r = (n1r * d1r + n1i * d1i) / d1m;
+    const t1i = (n1i * d1r - n1r * d1i) / d1m;
+    // (1 − p)/(1 + w m2) − (1 − p) = −(1 − p) w m2 / (1 + w m2)
+    const d2r = 1 + a * m2;
+    const d2i = b * m2;
+    const d2m = d2r * d2r + d2i * d2i;
+    const n2r = -(1 - p) * m2 * a;
+    const n2i = -(1 - p) * m2 * b;
+    const t2r = (n2r * d2r + n2i * d2i) / d2m;
+    const t2i = (n2i * d2r - n2r * d2i) / d2m;
+    outRe[j] += lt * (t1r + t2r - a * zeta);
+    outIm[j] += lt * (t1i + t2i - b * zeta);
+  }
+}
+
+/** Scalar convenience (not for hot loops): ln E[e^{wY}] at one complex w. */
+export function logCharacteristicAt(
+  spec: ModelSpec,
+  T: number,
+  wRe: number,
+  wIm: number,
+): [number, number] {
+  const wr = new Float64Array([wRe]);
+  const wi = new Float64Array([wIm]);
+  const re = new Float64Array(1);
+  const im = new Float64Array(1);
+  logCharacteristic(spec, T, wr, wi, re, im, 1);
+  return [re[0], im[0]];
+}

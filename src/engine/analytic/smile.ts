@@ -1,0 +1,133 @@
+/**
+ * Implied-vol smiles over a grid of expiries × log-moneyness, with the usual summaries quoted
+ * in forward (undiscounted) Black-Scholes deltas: ATM at the forward,
+ * RR25 = σ(25Δ call) − σ(25Δ put), BF25 = (σ(25Δ call) + σ(25Δ put))/2 − σ(ATM).
+ */
+import { modelSpec, type ModelSpec } from './characteristic';
+import { cosDensity, cosStrip, prepareCos, type CosExpiry, DEFAULT_COS_SETTINGS } from './cos';
+import { forwardPrice } from '../core/market';
+import { normCdf, normInv } from './normal';
+import { impliedVolFromOtm } from './pricing';
+import type { Market, Model } from '../core/types';
+
+export interface SmileSlice {
+  expiry: number;
+  forward: number;
+  strikes: number[];
+  logMoneyness: number[];
+  impliedVols: (number | null)[];
+  /** forward call delta Φ(d1) at each strike (null where the vol is undefined) */
+  callDeltas: (number | null)[];
+  atm: number | null;
+  rr25: number | null;
+  bf25: number | null;
+  /** strikes of the 25-delta call and put, where found */
+  strike25Call: number | null;
+  strike25Put: number | null;
+}
+
+export interface SmileSurface {
+  slices: SmileSlice[];
+}
+
+/** Vol at one log-moneyness from a prepared expiry. */
+function volAt(prep: CosExpiry, k: number): number | null {
+  const c = new Float64Array(1);
+  const p = new Float64Array(1);
+  const cdf = new Float64Array(1);
+  const d = new Float64Array(1);
+  cosStrip(prep, [k], c, p, cdf, d);
+  return impliedVolFromOtm(k < 0 ? p[0] : c[0], k, prep.expiry);
+}
+
+/**
+ * Log-moneyness of the strike whose forward call delta is `delta`, with the smile's own vol:
+ * the fixed point of k = s·(−Φ⁻¹(Δ)) + s²/2, s = σ(k)√T.
+ */
+export function strikeForDelta(prep: CosExpiry, delta: number, start: number): number | null {
+  const z = normInv(delta);
+  const rootT = Math.sqrt(prep.expiry);
+  let sigma: number | null = start;
+  let k = 0;
+  for (let i = 0; i < 60 && sigma !== null; i++) {
+    const s = sigma * rootT;
+    const next = -z * s + 0.5 * s * s;
+    if (Math.abs(next - k) < 1e-12) return next;
+    k = i < 20 ? next : 0.5 * (k + next); // damp if it has not settled
+    sigma = volAt(prep, k);
+  }
+  return sigma === null ? null : k;
+}
+
+export function smileSlice(
+  spec: ModelSpec,
+  market: Market,
+  expiry: number,
+  logMoneyness: readonly number[],
+): SmileSlice {
+  const prep = prepareCos(spec, expiry, DEFAULT_COS_SETTINGS);
+  const F = forwardPrice(market, expiry);
+  const n = logMoneyness.length;
+  const call = new Float64Array(n);
+  const put = new Float64Array(n);
+  const cdf = new Float64Array(n);
+  const dens = new Float64Array(n);
+  cosStrip(prep, logMoneyness, call, put, cdf, dens);
+  const rootT = Math.sqrt(expiry);
+  const impliedVols = logMoneyness.map((k, j) =>
+    impliedVolFromOtm(k < 0 ? put[j] : call[j], k, expiry),
+  );
+  const callDeltas = impliedVols.map((v, j) => {
+    if (v === null) return null;
+    const s = v * rootT;
+    return normCdf(-logMoneyness[j] / s + 0.5 * s);
+  });
+  const atm = volAt(prep, 0);
+  let rr25: number | null = null;
+  let bf25: number | null = null;
+  let k25c: number | null = null;
+  let k25p: number | null = null;
+  if (atm !== null) {
+    k25c = strikeForDelta(prep, 0.25, atm);
+    k25p = strikeForDelta(prep, 0.75, atm);
+    const vc = k25c === null ? null : volAt(prep, k25c);
+    const vp = k25p === null ? null : volAt(prep, k25p);
+    if (vc !== null && vp !== null) {
+      rr25 = vc - vp;
+      bf25 = 0.5 * (vc + vp) - atm;
+    }
+  }
+  return {
+    expiry,
+    forward: F,
+    strikes: logMoneyness.map((k) => F * Math.exp(k)),
+    logMoneyness: [...logMoneyness],
+    impliedVols,
+    callDeltas,
+    atm,
+    rr25,
+    bf25,
+    strike25Call: k25c === null ? null : F * Math.exp(k25c),
+    strike25Put: k25p === null ? null : F * Math.exp(k25p),
+  };
+}
+
+export function smileSurface(
+  market: Market,
+  model: Model,
+  expiries: readonly number[],
+  logMoneyness: readonly number[],
+): SmileSurface {
+  const spec = modelSpec(model);
+  return { slices: expiries.map((t) => smileSlice(spec, market, t, logMoneyness)) };
+}
+
+/** Density of the log-return ln(S_T/F) at the given points (COS series of the density). */
+export function logReturnDensity(
+  model: Model,
+  expiry: number,
+  points: readonly number[],
+): number[] {
+  const prep = prepareCos(modelSpec(model), expiry, DEFAULT_COS_SETTINGS);
+  return points.map((y) => cosDensity(prep, y));
+}

@@ -1,0 +1,42 @@
+/**
+ * How likely an instant gap of each ladder size is over a horizon: the probability of at least
+ * one jump, 1 − e^{−λh}, times the chance that a jump's size falls in the ladder point's bin
+ * (single-jump approximation, fine for the day and week horizons it is drawn for).
+ */
+import { normCdf } from '../analytic/normal';
+import { jumpIntensityOf, modelSpec } from '../core/models';
+import type { JumpLaw } from '../core/model-spec';
+import type { Model } from '../core/types';
+
+function logJumpCdf(jumps: JumpLaw, y: number): number {
+  if (jumps.type === 'lognormal') {
+    if (jumps.jumpStdev === 0) return y >= jumps.jumpMean ? 1 : 0;
+    return normCdf((y - jumps.jumpMean) / jumps.jumpStdev);
+  }
+  if (jumps.type === 'double-exponential') {
+    const { upProbability: p, upMean: m1, downMean: m2 } = jumps;
+    if (y < 0) return m2 > 0 ? (1 - p) * Math.exp(y / m2) : 0;
+    return 1 - (m1 > 0 ? p * Math.exp(-y / m1) : 0);
+  }
+  return y >= 0 ? 1 : 0;
+}
+
+/** Probability, per horizon, that a jump lands in the bin around each move (moves ascending). */
+export function jumpMoveProbabilities(
+  model: Model,
+  moves: readonly number[],
+  horizonYears: number,
+): number[] {
+  const lambda = jumpIntensityOf(model);
+  const jumps = modelSpec(model).jumps;
+  if (lambda === 0 || moves.length === 0) return moves.map(() => 0);
+  const atLeastOne = -Math.expm1(-lambda * horizonYears);
+  return moves.map((m, i) => {
+    const lo = i === 0 ? -0.9999 : 0.5 * (moves[i - 1] + m);
+    const hi =
+      i === moves.length - 1 ? m + (m - (moves[i - 1] ?? m - 0.01)) / 2 : 0.5 * (m + moves[i + 1]);
+    const yLo = Math.log(Math.max(1 + lo, 1e-12));
+    const yHi = Math.log(Math.max(1 + hi, 1e-12));
+    return atLeastOne * Math.max(0, logJumpCdf(jumps, yHi) - logJumpCdf(jumps, yLo));
+  });
+}

@@ -1,0 +1,57 @@
+/** Book positions and the gap ladder as JSON, shared by the Book page, its worker and the CLI. */
+import { z } from 'zod';
+import { bounded, finite, positiveUpTo } from '../core/fields';
+import { MAX_EXPIRY_YEARS } from '../core/schema';
+
+/** A book position as JSON (expiry in years); the same model as the CSV upload. */
+export const positionSchema = z
+  .object({
+    id: z.string().trim().min(1, 'must not be empty').max(100),
+    type: z.enum(['call', 'put', 'underlying'], { error: 'must be call, put or underlying' }),
+    strike: positiveUpTo(1e12).optional(),
+    expiry: positiveUpTo(MAX_EXPIRY_YEARS).optional(),
+    quantity: finite.refine(
+      (q) => q !== 0 && Math.abs(q) <= 1e9,
+      'must be non-zero and at most 1e9 in size',
+    ),
+    tradePrice: bounded(0, 1e12).optional(),
+  })
+  .superRefine((p, ctx) => {
+    if (p.type === 'underlying') return;
+    if (p.strike === undefined)
+      ctx.addIssue({ code: 'custom', path: ['strike'], message: 'is required for an option' });
+    if (p.expiry === undefined)
+      ctx.addIssue({ code: 'custom', path: ['expiry'], message: 'is required for an option' });
+  });
+
+export const positionsSchema = z
+  .array(positionSchema)
+  .min(1, 'needs at least one position')
+  .max(20000, 'at most 20000 positions')
+  .superRefine((ps, ctx) => {
+    const seen = new Set<string>();
+    ps.forEach((p, i) => {
+      if (seen.has(p.id))
+        ctx.addIssue({
+          code: 'custom',
+          path: [i, 'id'],
+          message: `"${p.id}" appears more than once`,
+        });
+      seen.add(p.id);
+    });
+  });
+
+export const ladderSchema = z
+  .object({
+    from: bounded(-0.99, 10),
+    to: bounded(-0.99, 10),
+    steps: finite.refine(
+      (n) => Number.isInteger(n) && n >= 1 && n <= 401,
+      'must be a whole number from 1 to 401',
+    ),
+  })
+  .refine((l) => l.to >= l.from, { message: 'to must not be below from', path: ['to'] });
+
+/** A position of the book: an option leg or a holding of the underlying. */
+export type Position = z.infer<typeof positionSchema>;
+export type PositionType = Position['type'];

@@ -1,0 +1,52 @@
+/**
+ * Stress: shocks layered on a scenario's base parameters. Which parameter each stress field
+ * moves, and how, is in the parameter table; a kind whose jump law needs more says so in its
+ * registry entry. A stressed set that leaves the model's domain is reported, never clipped.
+ */
+import { modelEntry } from './model-registry';
+import { PARAMETER_SPECS, type ParameterSpec } from './parameters';
+import { NO_STRESS, STRESS_FIELDS, type Stress } from './stress-fields';
+import type { Market, Model } from './types';
+import { validateModel, type FieldIssue } from './validate';
+
+export { NO_STRESS, STRESS_FIELDS, type Stress, type StressField } from './stress-fields';
+
+export function isIdentityStress(s: Partial<Stress> | undefined): boolean {
+  if (!s) return true;
+  const full = { ...NO_STRESS, ...s };
+  return STRESS_FIELDS.every((k) => full[k] === NO_STRESS[k]);
+}
+
+export interface StressedScenario {
+  market: Market;
+  model: Model;
+  issues: FieldIssue[];
+}
+
+export function applyStress(
+  market: Market,
+  model: Model,
+  stress: Partial<Stress>,
+): StressedScenario {
+  const s = { ...NO_STRESS, ...stress };
+  const stressedMarket: Market = { ...market, spot: market.spot * (1 + s.spotShift) };
+  const m: Record<string, unknown> = { ...model };
+  const entry = modelEntry(model.kind);
+  for (const group of entry.groups)
+    for (const key of group.parameters) {
+      const rule = (PARAMETER_SPECS[key] as ParameterSpec).stress;
+      if (!rule) continue;
+      const x = model[key] as number;
+      m[key] = rule.op === 'scale' ? x * s[rule.field] : x + s[rule.field];
+    }
+  if (entry.stressJumps) Object.assign(m, entry.stressJumps(model, s));
+  const stressed = m as Model;
+  const issues: FieldIssue[] = [];
+  if (!(stressedMarket.spot > 0)) {
+    issues.push({ path: 'stress.spotShift', message: 'the stressed spot must stay above zero' });
+  }
+  for (const issue of validateModel(stressed)) {
+    issues.push({ path: `stress → model.${issue.path}`, message: issue.message });
+  }
+  return { market: stressedMarket, model: stressed, issues };
+}

@@ -1,0 +1,63 @@
+/**
+ * Calibration parameters: bounds, the logistic map that keeps every trial inside them
+ * (x = lo + (hi − lo)/(1 + e^{−z})), plausible boxes for starting points, and a Halton sequence
+ * (low-discrepancy, Halton 1960) to spread those starts.
+ */
+import { modelFrom, parametersOf, PARAMETER_SPECS, type FitBox } from '../core';
+import type { Model, ModelKind } from '../core/types';
+
+/** A parameter's calibration box (from the parameter table). */
+export type Bound = FitBox;
+
+/** Every parameter's calibration box, by name. */
+export const BOUNDS: Record<string, Bound> = Object.fromEntries(
+  Object.entries(PARAMETER_SPECS).map(([key, spec]) => [key, spec.fit]),
+);
+
+export const toUnbounded = (x: number, b: Bound) => {
+  const u = Math.min(1 - 1e-12, Math.max(1e-12, (x - b.lo) / (b.hi - b.lo)));
+  return Math.log(u / (1 - u));
+};
+export const toBounded = (z: number, b: Bound) => b.lo + (b.hi - b.lo) / (1 + Math.exp(-z));
+
+/** Whether x sits within 0.1 % of the width of either bound. */
+export const onBound = (x: number, b: Bound) =>
+  (x - b.lo) / (b.hi - b.lo) < 1e-3 || (b.hi - x) / (b.hi - b.lo) < 1e-3;
+
+const PRIMES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31];
+
+/** Point `index` (1-based) of the Halton sequence in `dims` dimensions. */
+export function halton(index: number, dims: number): number[] {
+  return Array.from({ length: dims }, (_, d) => {
+    const base = PRIMES[d];
+    let f = 1;
+    let r = 0;
+    let i = index;
+    while (i > 0) {
+      f /= base;
+      r += f * (i % base);
+      i = Math.floor(i / base);
+    }
+    return r;
+  });
+}
+
+/** The free parameters of a model kind, less the fixed ones. */
+export function freeParameters(kind: ModelKind, fixed: readonly string[]): string[] {
+  return parametersOf(kind).filter((p) => !fixed.includes(p));
+}
+
+export function withParameters(
+  model: Model,
+  names: readonly string[],
+  values: ArrayLike<number>,
+): Model {
+  const m: Record<string, unknown> = { ...model };
+  names.forEach((n, i) => (m[n] = values[i]));
+  return m as Model;
+}
+
+/** A full starting guess: the caller's values, typical ones for the parameters not given. */
+export function completeGuess(kind: ModelKind, given: Record<string, unknown>): Model {
+  return modelFrom(kind, given, (p) => PARAMETER_SPECS[p].fit.guess);
+}

@@ -1,0 +1,97 @@
+/**
+ * "Are the jumps worth it?": Heston and Bates fitted to the same quotes, RMSE by expiry bucket
+ * (under 1 month, 1–6 months, beyond), and information criteria that charge for parameters:
+ * AIC = n ln(SSE/n) + 2k (Akaike 1974) and BIC = n ln(SSE/n) + k ln n (Schwarz 1978).
+ */
+import { calibrate, type CalibrationRequest, type CalibrationResult } from './calibrate';
+import type { Model } from '../core/types';
+
+export interface BucketRmse {
+  bucket: 'under 1M' | '1M–6M' | 'over 6M';
+  heston: number | null;
+  bates: number | null;
+  count: number;
+}
+
+export interface JumpsVerdict {
+  heston: CalibrationResult;
+  bates: CalibrationResult;
+  buckets: BucketRmse[];
+  aic: { heston: number; bates: number };
+  bic: { heston: number; bates: number };
+  /** BIC falls by more than 10 with the jumps: strong evidence for them (Kass & Raftery 1995) */
+  jumpsEarnTheirKeep: boolean;
+  summary: string;
+}
+
+const BUCKETS: [BucketRmse['bucket'], number, number][] = [
+  ['under 1M', 0, 1 / 12],
+  ['1M–6M', 1 / 12, 0.5],
+  ['over 6M', 0.5, Infinity],
+];
+
+function bucketRmse(
+  r: CalibrationResult,
+  lo: number,
+  hi: number,
+): { rmse: number | null; count: number } {
+  const sq = r.residuals
+    .filter((x) => x.expiry >= lo && x.expiry < hi)
+    .map((x) => (100 * ((x.model ?? 0) - x.market)) ** 2);
+  return {
+    rmse: sq.length ? Math.sqrt(sq.reduce((a, b) => a + b, 0) / sq.length) : null,
+    count: sq.length,
+  };
+}
+
+function criteria(r: CalibrationResult, k: number) {
+  const n = r.residuals.length;
+  const base = n * Math.log(Math.max(r.sseVolPoints, 1e-300) / n);
+  return { aic: base + 2 * k, bic: base + k * Math.log(n) };
+}
+
+export function jumpsVerdict(
+  req: Omit<CalibrationRequest, 'model'> & {
+    hestonGuess: Model & { kind: 'heston' };
+    progress?: (f: number) => boolean | void;
+  },
+): JumpsVerdict {
+  const g = req.hestonGuess;
+  const heston = calibrate({ ...req, model: g }, (f) => req.progress?.(0.4 * f));
+  const batesGuess: Model = {
+    ...(heston.model as Model & { kind: 'heston' }),
+    kind: 'bates',
+    jumpIntensity: 0.3,
+    jumpMean: -0.08,
+    jumpStdev: 0.1,
+  };
+  const bates = calibrate({ ...req, model: batesGuess }, (f) => req.progress?.(0.4 + 0.6 * f));
+  const kH =
+    5 -
+    (req.fixed?.filter((p) => ['v0', 'kappa', 'theta', 'volOfVol', 'rho'].includes(p)).length ?? 0);
+  const kB =
+    kH +
+    3 -
+    (req.fixed?.filter((p) => ['jumpIntensity', 'jumpMean', 'jumpStdev'].includes(p)).length ?? 0);
+  const cH = criteria(heston, kH);
+  const cB = criteria(bates, kB);
+  const buckets = BUCKETS.map(([bucket, lo, hi]) => {
+    const h = bucketRmse(heston, lo, hi);
+    const b = bucketRmse(bates, lo, hi);
+    return { bucket, heston: h.rmse, bates: b.rmse, count: h.count };
+  });
+  const earn = cH.bic - cB.bic > 10;
+  const short = buckets[0];
+  const summary = earn
+    ? `The jumps earn their three parameters: BIC falls by ${(cH.bic - cB.bic).toFixed(1)}${short.count ? `, and the under-1M RMSE goes from ${short.heston!.toFixed(2)} to ${short.bates!.toFixed(2)} vol points` : ''}.`
+    : `Heston is enough here: the jumps lower BIC by only ${(cH.bic - cB.bic).toFixed(1)} (more than 10 would be strong evidence).`;
+  return {
+    heston,
+    bates,
+    buckets,
+    aic: { heston: cH.aic, bates: cB.aic },
+    bic: { heston: cH.bic, bates: cB.bic },
+    jumpsEarnTheirKeep: earn,
+    summary,
+  };
+}
