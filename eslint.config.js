@@ -1,12 +1,76 @@
 import js from '@eslint/js';
 import globals from 'globals';
+import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
+import importX from 'eslint-plugin-import-x';
 import reactHooks from 'eslint-plugin-react-hooks';
 import tseslint from 'typescript-eslint';
+
+// The engine's layers, lowest first: a layer imports only the layers before it (fit, paths and
+// book stand side by side, above analytic and below replay).
+const ENGINE_LAYERS = {
+  core: [],
+  analytic: ['core'],
+  fit: ['core', 'analytic'],
+  paths: ['core', 'analytic'],
+  book: ['core', 'analytic'],
+  replay: ['core', 'analytic', 'fit', 'paths', 'book'],
+};
+const engineZones = Object.entries(ENGINE_LAYERS).map(([layer, below]) => ({
+  target: `./src/engine/${layer}`,
+  from: './src/engine',
+  except: [`./${layer}`, ...below.map((b) => `./${b}`)],
+  message: `The engine's ${layer} layer imports only ${['itself', ...below].join(', ')}.`,
+}));
+
+// Features never import each other; pages compose them in src/routes.
+const FEATURES = ['sketch', 'book', 'fit', 'paths', 'replay', 'library', 'desk', 'account'];
+const featureZones = FEATURES.map((f) => ({
+  target: `./src/features/${f}`,
+  from: './src/features',
+  except: [`./${f}`],
+  message:
+    'A feature does not import another feature; share through src/components or a layer below.',
+}));
+const SHARED = ['components', 'store', 'api', 'sync', 'workers', 'engine'];
+const sharedZones = [
+  {
+    target: SHARED.map((d) => `./src/${d}`),
+    from: ['./src/features', './src/routes'],
+    message: 'Shared code does not import features or routes.',
+  },
+  {
+    target: './src/features',
+    from: './src/routes',
+    message: 'Features do not import routes; the route table imports pages.',
+  },
+];
 
 export default tseslint.config(
   { ignores: ['dist', 'node_modules', '.data', 'coverage'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
+  {
+    plugins: { 'import-x': importX },
+    settings: {
+      // the imported modules are parsed too (for cycles), with the TypeScript parser
+      'import-x/extensions': ['.ts', '.tsx', '.js', '.mjs'],
+      'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
+      'import-x/resolver-next': [
+        createTypeScriptImportResolver({
+          project: ['tsconfig.json', 'tsconfig.node.json', 'tsconfig.test.json'],
+          noWarnOnMultipleProjects: true,
+        }),
+      ],
+    },
+    rules: {
+      'import-x/no-cycle': ['error', { ignoreExternal: true }],
+      'import-x/no-duplicates': ['error', { 'prefer-inline': true }],
+      'import-x/no-restricted-paths': [
+        'error',
+        { zones: [...engineZones, ...featureZones, ...sharedZones] },
+      ],
+    },
+  },
   {
     languageOptions: {
       ecmaVersion: 2023,

@@ -3,7 +3,7 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router';
 import { queryClient } from './api/query-client';
-import { router } from './router';
+import { router } from './routes/router';
 import { applyStoredTheme } from './components/theme';
 import './styles.css';
 

@@ -1,7 +1,7 @@
 /**
  * `npm test`: every check on a fresh machine. Starts a throwaway PostgreSQL on loopback in a
  * temporary folder, makes sure Debian's chromium is there for the browser tests, then runs the
- * type check, lint, a client build and every vitest project (unit, api, e2e) in one run, and
+ * type checks (client, server and CLI, tests), lint, the format check, a client build and every vitest project (unit, api, e2e) in one run, and
  * stops everything it started. Exits non-zero on any failure.
  */
 import { spawn } from 'node:child_process';
@@ -72,8 +72,15 @@ async function main(): Promise<number> {
       ...(quick
         ? []
         : ([
-            ['type check', bin('tsc'), ['--noEmit', '-p', 'tsconfig.json']],
+            ...['tsconfig.json', 'tsconfig.node.json', 'tsconfig.test.json'].map(
+              (project): [string, string, string[]] => [
+                `type check (${project})`,
+                bin('tsc'),
+                ['--noEmit', '-p', project],
+              ],
+            ),
             ['lint', bin('eslint'), ['.', '--max-warnings', '0']],
+            ['format check', bin('prettier'), ['--check', '.']],
           ] as [string, string, string[]][])),
       ...(noBuild
         ? []

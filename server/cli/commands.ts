@@ -1,23 +1,39 @@
 /** The CLI commands over the engine; each validates its request and times only engine work. */
 import { z } from 'zod';
-import { priceOptions } from '../../src/engine/analytic';
-import { calibrate as calibrateModel } from '../../src/engine/fit';
-import { completeGuess } from '../../src/engine/fit';
-import { parametersOf } from '../../src/engine/core';
-import { discountFactor, forwardPrice } from '../../src/engine/core';
-import { impliedVol } from '../../src/engine/analytic';
-import { bookTotal, ladderMoves, legRisks, legValuesAtMoves, sumRow } from '../../src/engine/book';
-import type { Position } from '../../src/engine/book';
-import { replay as replayHedge } from '../../src/engine/replay';
-import { simulate as simulatePaths } from '../../src/engine/paths';
-import { marketSchema, modelSchema, MAX_EXPIRY_YEARS, stressSchema } from '../../src/engine/core';
-import { ladderSchema, positionsSchema } from '../../src/engine/book';
-import { simulationSettingsSchema } from '../../src/engine/paths';
-import { replayRequestSchema } from '../../src/engine/replay';
-import { smileSurface, type SmileSurface } from '../../src/engine/analytic';
-import { applyStress, isIdentityStress } from '../../src/engine/core';
-import type { Market, Model, OptionSpec } from '../../src/engine/core';
-import { parseScenario } from '../../src/engine/core';
+import {
+  priceOptions,
+  impliedVol,
+  smileSurface,
+  type SmileSurface,
+} from '../../src/engine/analytic';
+import { calibrate as calibrateModel, completeGuess } from '../../src/engine/fit';
+import {
+  parametersOf,
+  discountFactor,
+  forwardPrice,
+  marketSchema,
+  modelSchema,
+  MAX_EXPIRY_YEARS,
+  stressSchema,
+  applyStress,
+  isIdentityStress,
+  parseScenario,
+  type Market,
+  type Model,
+  type OptionSpec,
+} from '../../src/engine/core';
+import {
+  bookTotal,
+  ladderMoves,
+  legRisks,
+  legValuesAtMoves,
+  sumRow,
+  ladderSchema,
+  positionsSchema,
+  type Position,
+} from '../../src/engine/book';
+import { replay as replayHedge, replayRequestSchema } from '../../src/engine/replay';
+import { simulate as simulatePaths, simulationSettingsSchema } from '../../src/engine/paths';
 import { CliError } from './io';
 
 function parse<T>(schema: z.ZodType<T>, value: unknown): T {

@@ -1,12 +1,11 @@
 /** Sync: push mutations, pull changes since a cursor, a scenario's revision history. */
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import type { Knex } from 'knex';
 import { z } from 'zod';
 import { isUuid, setStanding } from '../access';
 import { notFound, parseOr400 } from '../errors';
 import { applyMutation, mutationSchema, type MutationResult } from '../sync/push';
 import { pull } from '../sync/pull';
-import type { RequestHandler } from 'express';
 
 const pushBody = z.object({ mutations: z.array(mutationSchema).min(1).max(200) });
 const pullQuery = z.object({ since: z.string().max(4000).optional() });

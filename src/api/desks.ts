@@ -1,5 +1,4 @@
-/** Desks, members, invites and sets on the sync service, through TanStack Query. */
-import { queryOptions } from '@tanstack/react-query';
+/** Desks, members, invites and sets on the sync service: their shapes and typed calls. */
 import { apiFetch } from './client';
 
 export type Role = 'lead' | 'trader' | 'analyst';
@@ -33,32 +32,6 @@ export interface Revision {
   author: string | null;
   createdAt: string;
 }
-
-export const desksQuery = queryOptions({
-  queryKey: ['service', 'desks'],
-  queryFn: () => apiFetch<{ desks: { id: string; name: string; role: Role }[] }>('/desks'),
-});
-export const membersQuery = (deskId: string) =>
-  queryOptions({
-    queryKey: ['service', 'desks', deskId, 'members'],
-    queryFn: () => apiFetch<{ members: Member[] }>(`/desks/${deskId}/members`),
-  });
-export const invitesQuery = (deskId: string) =>
-  queryOptions({
-    queryKey: ['service', 'desks', deskId, 'invites'],
-    queryFn: () => apiFetch<{ invites: Invite[] }>(`/desks/${deskId}/invites`),
-  });
-export const setsQuery = queryOptions({
-  queryKey: ['service', 'sets'],
-  queryFn: () => apiFetch<{ sets: ServiceSet[] }>('/sets'),
-});
-export const revisionsQuery = (id: string) =>
-  queryOptions({
-    queryKey: ['service', 'revisions', id],
-    queryFn: () => apiFetch<{ revisions: Revision[] }>(`/scenarios/${id}/revisions`),
-    // fresh each time the history opens: a sync may have added a revision since
-    staleTime: 0,
-  });
 
 const send = <T>(method: string, path: string, body?: unknown) =>
   apiFetch<T>(path, { method, body: body === undefined ? undefined : JSON.stringify(body) });

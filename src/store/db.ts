@@ -53,7 +53,7 @@ export interface MetaEntry {
 }
 
 /** A named group of scenarios on this device, with the book of positions it revalues. */
-export interface LocalScenarioSet {
+export interface LocalBook {
   id: string;
   name: string;
   scenarioIds: string[];
@@ -76,7 +76,8 @@ export class SaltationDb extends Dexie {
   scenarios!: EntityTable<StoredScenario, 'id'>;
   outbox!: EntityTable<OutboxEntry, 'seq'>;
   results!: EntityTable<CachedResult, 'key'>;
-  sets!: EntityTable<LocalScenarioSet, 'id'>;
+  /** the device-only books (the table keeps the name it was created with) */
+  sets!: EntityTable<LocalBook, 'id'>;
   remoteSets!: EntityTable<RemoteSet, 'id'>;
   meta!: EntityTable<MetaEntry, 'key'>;
 

@@ -3,9 +3,13 @@
  * it has none: an index with a crash-prone short end and a single stock with earnings-like
  * jumps.
  */
-import { defaultMoneyness, TENORS } from '../engine/core';
-import { SCENARIO_FORMAT, type ScenarioDocument } from '../engine/core';
-import { NO_STRESS } from '../engine/core';
+import {
+  defaultMoneyness,
+  TENORS,
+  SCENARIO_FORMAT,
+  type ScenarioDocument,
+  NO_STRESS,
+} from '../engine/core';
 
 const grid = {
   expiries: TENORS.slice(0, 5).map((t) => t.years),

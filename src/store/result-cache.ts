@@ -4,8 +4,7 @@
  * has a size cap and evicts the least recently used entries; an entry is written whole, in one
  * transaction, or not at all.
  */
-import { canonicalJson } from '../engine/core';
-import { ENGINE_VERSION } from '../engine/core';
+import { canonicalJson, ENGINE_VERSION } from '../engine/core';
 import type { CachedResult, SaltationDb } from './db';
 
 export const CACHE_CAP_BYTES = 64 * 1024 * 1024;

@@ -2,8 +2,7 @@
  * Scenario files: a saltation/scenario@1 document, or a JSON array of them. Import validates
  * each one with the shared validator and names the bad field; export writes the same format.
  */
-import type { ScenarioDocument } from '../engine/core';
-import { parseScenario } from '../engine/core';
+import { type ScenarioDocument, parseScenario } from '../engine/core';
 
 export type ImportResult =
   { ok: true; documents: ScenarioDocument[] } | { ok: false; error: string };

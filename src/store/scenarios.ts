@@ -1,6 +1,5 @@
 /** Scenario persistence: each save writes the scenario and its outbox entry in one transaction. */
-import type { ScenarioDocument } from '../engine/core';
-import { parseScenario } from '../engine/core';
+import { type ScenarioDocument, parseScenario } from '../engine/core';
 import type { SaltationDb, StoredScenario } from './db';
 
 export class ScenarioValidationError extends Error {

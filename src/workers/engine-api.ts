@@ -1,13 +1,7 @@
 /** Every command the engine worker answers; the page side and the worker share this contract. */
-import type { SmileSurface } from '../engine/analytic';
-import type { Stress } from '../engine/core';
-import type { FieldIssue } from '../engine/core';
-import type { LadderSpec } from '../engine/book';
-import type { BookScenario, SetRevaluation } from '../engine/book';
-import type { Position } from '../engine/book';
-import type { OptionResult } from '../engine/analytic';
-import type { ParameterSensitivity } from '../engine/analytic';
-import type { Market, Model, OptionSpec } from '../engine/core';
+import type { SmileSurface, OptionResult, ParameterSensitivity } from '../engine/analytic';
+import type { Stress, FieldIssue, Market, Model, OptionSpec } from '../engine/core';
+import type { LadderSpec, BookScenario, SetRevaluation, Position } from '../engine/book';
 
 export interface PriceRequest {
   market: Market;

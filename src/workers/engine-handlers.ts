@@ -1,10 +1,12 @@
 /** The engine work behind each worker command, as plain functions (also used by tests). */
 import { revalueSet } from '../engine/book';
-import { priceOptions } from '../engine/analytic';
-import { smileSensitivities } from '../engine/analytic';
-import { logReturnDensity, smileSurface } from '../engine/analytic';
-import { applyStress, isIdentityStress } from '../engine/core';
-import { ENGINE_VERSION } from '../engine/core';
+import {
+  priceOptions,
+  smileSensitivities,
+  logReturnDensity,
+  smileSurface,
+} from '../engine/analytic';
+import { applyStress, isIdentityStress, ENGINE_VERSION } from '../engine/core';
 import type {
   EngineApi,
   PriceRequest,

@@ -1,9 +1,12 @@
 /** The calibration worker's commands. Progress comes back through a callback (a comlink proxy). */
-import type { CalibrationRequest, CalibrationResult } from '../engine/fit';
-import type { JumpsVerdict } from '../engine/fit';
-import type { TargetSolution, TargetVol } from '../engine/fit';
-import type { Stress } from '../engine/core';
-import type { Market, Model } from '../engine/core';
+import type {
+  CalibrationRequest,
+  CalibrationResult,
+  JumpsVerdict,
+  TargetSolution,
+  TargetVol,
+} from '../engine/fit';
+import type { Stress, Market, Model } from '../engine/core';
 
 export interface TargetRequest {
   market: Market;

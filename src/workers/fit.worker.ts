@@ -1,7 +1,5 @@
 import { expose } from 'comlink';
-import { calibrate } from '../engine/fit';
-import { jumpsVerdict } from '../engine/fit';
-import { solveToTargets } from '../engine/fit';
+import { calibrate, jumpsVerdict, solveToTargets } from '../engine/fit';
 import type { FitApi } from './fit-api';
 
 const api: FitApi = {

@@ -1,6 +1,5 @@
 /** The Monte Carlo worker: runs the blocks it is given and hands their sums back (transferred). */
-import type { PathsView } from '../engine/paths';
-import type { BlockSums, SimulationSettings } from '../engine/paths';
+import type { PathsView, BlockSums, SimulationSettings } from '../engine/paths';
 import type { Market, Model } from '../engine/core';
 
 export interface BlocksDone {

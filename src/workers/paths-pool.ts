@@ -7,13 +7,13 @@ import { proxy } from 'comlink';
 import {
   blockCount,
   combineBlocks,
+  type PathsView,
   type BlockSums,
   type SimulationResult,
   type SimulationSettings,
 } from '../engine/paths';
 import type { Market, Model } from '../engine/core';
 import { batches, poolSize, startPool, type PoolRun } from './block-pool';
-import type { PathsView } from '../engine/paths';
 import type { PathsApi } from './paths-api';
 
 export interface PathsOutcome {
@@ -31,6 +31,7 @@ export function runPaths(
   model: Model,
   unsorted: SimulationSettings,
   onProgress: (fraction: number) => void,
+  signal: AbortSignal,
   size = poolSize(),
 ): PathsRun {
   // blocks look options up in expiry order (as simulate() does); answers go back in the caller's
@@ -71,6 +72,7 @@ export function runPaths(
       }
       return { summary, view, histogram, workers: run.workers };
     },
+    signal,
   );
   return run;
 }

@@ -1,6 +1,5 @@
 import { expose, transfer } from 'comlink';
-import { pathsView } from '../engine/paths';
-import { simulateBlock } from '../engine/paths';
+import { pathsView, simulateBlock } from '../engine/paths';
 import type { BlocksDone, PathsApi } from './paths-api';
 
 const api: PathsApi = {

@@ -1,6 +1,11 @@
 /** The hedge replay worker: runs the blocks it is given and follows single paths. */
-import type { PathTrace, ReplayPlan, ReplayRequest, ReplayResult } from '../engine/replay';
-import type { PnlHistogram } from '../engine/replay';
+import type {
+  PathTrace,
+  ReplayPlan,
+  ReplayRequest,
+  ReplayResult,
+  PnlHistogram,
+} from '../engine/replay';
 
 export interface ReplayBlocksDone {
   pnl: Float64Array[];

@@ -5,9 +5,13 @@
  * does not depend on the pool size. A separate long-lived worker follows single paths for drill-down.
  */
 import { proxy, transfer, wrap, type Remote } from 'comlink';
-import { blockCountFor, type ReplayRequest, type ReplayResult } from '../engine/replay';
+import {
+  blockCountFor,
+  type PnlHistogram,
+  type ReplayRequest,
+  type ReplayResult,
+} from '../engine/replay';
 import { batches, poolSize, startPool, type PoolRun } from './block-pool';
-import type { PnlHistogram } from '../engine/replay';
 import type { FinishedRun, ReplayApi } from './replay-api';
 
 export interface ReplayOutcome {
@@ -29,6 +33,7 @@ const makeWorker = () =>
 export function runReplays(
   requests: ReplayRequest[],
   onProgress: (fraction: number) => void,
+  signal: AbortSignal,
   size = poolSize(),
 ): PoolRun<ReplayOutcome> {
   const perRequest = requests.map((r) => blockCountFor(r.paths));
@@ -70,6 +75,7 @@ export function runReplays(
       const { results, histograms } = await apis[0].finish(transfer(finished, buffers), BINS);
       return { results, histograms, workers: apis.length };
     },
+    signal,
   );
   return run;
 }

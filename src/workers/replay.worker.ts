@@ -6,8 +6,8 @@ import {
   replayResult,
   tracePath,
   type ReplayPlan,
+  sharedHistograms,
 } from '../engine/replay';
-import { sharedHistograms } from '../engine/replay';
 import type { ReplayApi, ReplayBlocksDone } from './replay-api';
 
 // plans (hedge tables included) of the last few requests: a comparison traces two hedges of

@@ -3,11 +3,9 @@
  * 41-point gap ladder, in one thread (as in one worker). Peer: the same revaluation done leg by
  * leg through the general pricing call (`priceOptions` at each ladder spot), in the same run.
  */
-import { revalueSet, type BookScenario } from '../../src/engine/book';
-import type { Position } from '../../src/engine/book';
+import { revalueSet, type BookScenario, type Position } from '../../src/engine/book';
 import { priceOptions } from '../../src/engine/analytic';
-import type { Market, Model } from '../../src/engine/core';
-import { DEFAULT_BATES } from '../../src/engine/core';
+import { type Market, type Model, DEFAULT_BATES } from '../../src/engine/core';
 import { fmt } from './timing';
 
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };

@@ -12,10 +12,9 @@ import {
   type BlockSums,
   type SimulationSettings,
 } from '../../src/engine/paths';
-import type { Market, Model } from '../../src/engine/core';
+import { type Market, type Model, DEFAULT_BATES } from '../../src/engine/core';
 import { quantlibMcBlackScholesCall } from '../support/quantlib';
 import { blocksInThreads } from './threads';
-import { DEFAULT_BATES } from '../../src/engine/core';
 import { fmt } from './timing';
 
 const market: Market = { spot: 100, rate: 0.02, dividendYield: 0.01 };

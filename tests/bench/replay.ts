@@ -4,8 +4,7 @@
  */
 import { blockCountFor, combineReplay, replay, type ReplayRequest } from '../../src/engine/replay';
 import { blocksInThreads } from './threads';
-import type { Model } from '../../src/engine/core';
-import { DEFAULT_BATES } from '../../src/engine/core';
+import { type Model, DEFAULT_BATES } from '../../src/engine/core';
 import { fmt } from './timing';
 
 export async function benchReplay(): Promise<Record<string, string>[]> {

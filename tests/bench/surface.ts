@@ -3,12 +3,14 @@
  * engine, against @quantlib/ql pricing the same options in the same run — its Heston engine for
  * the Heston part, and the same engine with the corrected Bates jump term for Bates.
  */
-import { modelSpec } from '../../src/engine/analytic';
-import { cosStrip, prepareCos } from '../../src/engine/analytic';
-import { discountFactor, forwardPrice } from '../../src/engine/core';
-import { impliedVolFromOtm } from '../../src/engine/analytic';
-import { smileSurface } from '../../src/engine/analytic';
-import type { Market, Model } from '../../src/engine/core';
+import {
+  modelSpec,
+  cosStrip,
+  prepareCos,
+  impliedVolFromOtm,
+  smileSurface,
+} from '../../src/engine/analytic';
+import { discountFactor, forwardPrice, type Market, type Model } from '../../src/engine/core';
 import { quantlibBatesPrices, quantlibHestonPrices } from '../support/quantlib';
 import { fmt, medianMs } from './timing';
 

@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { blackPrice, blackScholesGreeks, normalisedBlack } from '../../src/engine/analytic';
-import { impliedVol } from '../../src/engine/analytic';
-import { normCdf, normInv } from '../../src/engine/analytic';
+import {
+  blackPrice,
+  blackScholesGreeks,
+  normalisedBlack,
+  impliedVol,
+  normCdf,
+  normInv,
+} from '../../src/engine/analytic';
 
 /** Inputs with S, r, q as Hull and Haug state them: F = S e^{(r−q)T}, DF = e^{−rT}. */
 function bs(S: number, K: number, r: number, q: number, sigma: number, T: number, isCall: boolean) {

@@ -1,7 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { bookTotal, ladderMoves, legRisks, legValuesAtMoves, sumRow } from '../../src/engine/book';
-import { revalueSet, type BookScenario } from '../../src/engine/book';
-import type { Position } from '../../src/engine/book';
+import {
+  bookTotal,
+  ladderMoves,
+  legRisks,
+  legValuesAtMoves,
+  sumRow,
+  revalueSet,
+  type Position,
+  type BookScenario,
+} from '../../src/engine/book';
 import type { Market, Model } from '../../src/engine/core';
 
 const bates: Model = {

@@ -1,11 +1,14 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
-import { calibrate, modelVols, type VolQuote } from '../../src/engine/fit';
+import {
+  calibrate,
+  modelVols,
+  type VolQuote,
+  jumpsVerdict,
+  levenbergMarquardt,
+} from '../../src/engine/fit';
 import { impliedVol } from '../../src/engine/analytic';
-import { jumpsVerdict } from '../../src/engine/fit';
-import { levenbergMarquardt } from '../../src/engine/fit';
-import { discountFactor, forwardPrice } from '../../src/engine/core';
-import type { Market, Model } from '../../src/engine/core';
+import { discountFactor, forwardPrice, type Market, type Model } from '../../src/engine/core';
 import { quantlibHestonPrices } from '../support/quantlib';
 
 const market: Market = { spot: 100, rate: 0.02, dividendYield: 0.01 };

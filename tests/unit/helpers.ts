@@ -1,6 +1,5 @@
 /** Small builders shared by the engine tests. */
-import { lewisPrice } from '../../src/engine/analytic';
-import { priceOptions } from '../../src/engine/analytic';
+import { lewisPrice, priceOptions } from '../../src/engine/analytic';
 import type { Market, Model, OptionType } from '../../src/engine/core';
 
 export function market(spot: number, rate = 0, dividendYield = 0): Market {

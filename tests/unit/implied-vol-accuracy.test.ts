@@ -1,9 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { impliedVol } from '../../src/engine/analytic';
-import { lewisPrice } from '../../src/engine/analytic';
-import { discountFactor, forwardPrice } from '../../src/engine/core';
-import { priceOptions } from '../../src/engine/analytic';
-import type { Market, Model } from '../../src/engine/core';
+import { impliedVol, lewisPrice, priceOptions } from '../../src/engine/analytic';
+import { discountFactor, forwardPrice, type Market, type Model } from '../../src/engine/core';
 
 // The engine's implied vols against vols implied from the independent Lewis-integral prices,
 // for every model from 1 day to 10 years, including parameters at their limits.

@@ -1,9 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { lewisPrice } from '../../src/engine/analytic';
-import { discountFactor, forwardPrice } from '../../src/engine/core';
-import { priceOptions } from '../../src/engine/analytic';
-import type { Market, Model } from '../../src/engine/core';
+import { lewisPrice, priceOptions } from '../../src/engine/analytic';
+import { discountFactor, forwardPrice, type Market, type Model } from '../../src/engine/core';
 
 // No-arbitrage properties for random valid parameters (fast-check property tests).
 const hestonPart = {

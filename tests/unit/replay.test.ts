@@ -1,9 +1,9 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { buildHedgeTable, lookup } from '../../src/engine/replay';
-import { priceOptions } from '../../src/engine/analytic';
 import {
+  buildHedgeTable,
+  lookup,
   blockCountFor,
   combineReplay,
   planReplay,
@@ -11,10 +11,12 @@ import {
   replayBlock,
   tracePath,
   type ReplayRequest,
+  checkReplay,
+  summaryOf,
+  type SavedReplayRun,
 } from '../../src/engine/replay';
-import { discountFactor } from '../../src/engine/core';
-import { checkReplay, summaryOf, type SavedReplayRun } from '../../src/engine/replay';
-import type { Model } from '../../src/engine/core';
+import { priceOptions } from '../../src/engine/analytic';
+import { discountFactor, type Model } from '../../src/engine/core';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const market = { spot: 100, rate: 0.02, dividendYield: 0 };

@@ -1,8 +1,7 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { newScenario } from '../../src/engine/core';
-import { parseScenario } from '../../src/engine/core';
+import { newScenario, parseScenario } from '../../src/engine/core';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const good = () =>

@@ -1,17 +1,16 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { forwardPrice } from '../../src/engine/core';
+import { forwardPrice, type Model } from '../../src/engine/core';
 import { priceOptions } from '../../src/engine/analytic';
-import { simulationSettingsSchema } from '../../src/engine/paths';
 import {
+  simulationSettingsSchema,
   blockCount,
   combineBlocks,
   simulate,
   simulateBlock,
   type SimulationSettings,
 } from '../../src/engine/paths';
-import type { Model } from '../../src/engine/core';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const base = (over: Partial<SimulationSettings>): SimulationSettings => ({

@@ -1,9 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { modelVols } from '../../src/engine/fit';
-import { forwardPrice } from '../../src/engine/core';
-import { solveToTargets, type TargetVol } from '../../src/engine/fit';
-import { applyStress } from '../../src/engine/core';
-import type { Market, Model } from '../../src/engine/core';
+import { modelVols, solveToTargets, type TargetVol } from '../../src/engine/fit';
+import { forwardPrice, applyStress, type Market, type Model } from '../../src/engine/core';
 
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
 const base: Model = {

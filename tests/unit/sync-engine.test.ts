@@ -5,8 +5,7 @@
  */
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
-import { newScenario } from '../../src/engine/core';
-import type { ScenarioDocument } from '../../src/engine/core';
+import { newScenario, type ScenarioDocument } from '../../src/engine/core';
 import { SaltationDb } from '../../src/store/db';
 import { saveScenario } from '../../src/store/scenarios';
 import { differingFields, keepBoth, keepMine, takeTheirs } from '../../src/sync/conflicts';

@@ -1,0 +1,99 @@
+import type { Data, Layout } from 'plotly.js';
+import { useMemo } from 'react';
+import type { SetRevaluation } from '../../../engine/book';
+import { chartFrame, chartTheme } from '../../../components/chart-theme';
+import { PlotlyChart } from '../../../components/PlotlyChart';
+import { useTheme } from '../../../components/theme';
+
+/** The gap ladder (base model, sticky-strike Black-Scholes, one scenario) over the jump law. */
+export function LadderChart({
+  result,
+  scenarioIndex,
+}: {
+  result: SetRevaluation;
+  scenarioIndex: number;
+}) {
+  const theme = useTheme();
+  const figure = useMemo(() => {
+    const t = chartTheme(theme);
+    const x = result.moves.map((m) => 100 * m);
+    const s = result.scenarios[scenarioIndex];
+    const data: Data[] = [
+      {
+        type: 'scatter',
+        mode: 'lines+markers',
+        x,
+        y: result.baseLadder,
+        name: 'base model',
+        line: { color: t.base, width: 2 },
+        marker: { size: 4 },
+        xaxis: 'x',
+        yaxis: 'y',
+      },
+      {
+        type: 'scatter',
+        mode: 'lines',
+        x,
+        y: result.stickyStrikeLadder,
+        name: 'sticky-strike Black-Scholes',
+        line: { color: t.muted, width: 1.5, dash: 'dot' },
+        xaxis: 'x',
+        yaxis: 'y',
+      },
+    ];
+    if (s?.ladder)
+      data.push({
+        type: 'scatter',
+        mode: 'lines',
+        x,
+        y: s.ladder,
+        name: s.name,
+        line: { color: t.stressed, width: 2, dash: 'dash' },
+        xaxis: 'x',
+        yaxis: 'y',
+      });
+    data.push(
+      {
+        type: 'bar',
+        x,
+        y: result.jumpPerDay.map((p) => (p > 0 ? p : null)),
+        name: 'jump within a day',
+        marker: { color: t.teal },
+        xaxis: 'x',
+        yaxis: 'y2',
+      },
+      {
+        type: 'bar',
+        x,
+        y: result.jumpPerWeek.map((p) => (p > 0 ? p : null)),
+        name: 'jump within a week',
+        marker: { color: t.teal, opacity: 0.45 },
+        xaxis: 'x',
+        yaxis: 'y2',
+      },
+    );
+    const axis = {
+      gridcolor: t.grid,
+      zerolinecolor: t.muted,
+      linecolor: t.grid,
+      tickfont: { color: t.muted },
+    };
+    const layout: Partial<Layout> = {
+      ...chartFrame(t, 12),
+      height: 480,
+      margin: { l: 70, r: 12, t: 16, b: 44 },
+      barmode: 'overlay',
+      legend: { orientation: 'h', y: 1.1 },
+      xaxis: {
+        ...axis,
+        anchor: 'y2',
+        title: { text: 'instant move of the underlying (%)' },
+        ticksuffix: '%',
+      },
+      yaxis: { ...axis, domain: [0.36, 1], title: { text: 'book P&L' } },
+      yaxis2: { ...axis, domain: [0, 0.26], type: 'log', title: { text: 'probability' } },
+    };
+    return { data, layout };
+  }, [result, scenarioIndex, theme]);
+  return <PlotlyChart data={figure.data} layout={figure.layout} />;
+}

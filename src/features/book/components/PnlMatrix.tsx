@@ -1,0 +1,122 @@
+import { useState } from 'react';
+import type { SetRevaluation, Position } from '../../../engine/book';
+import { downloadText, toCsv } from '../../../components/csv';
+import { formatNumber } from '../../../components/format';
+
+const MAX_ROWS = 300;
+
+/** Legs × scenarios P&L against base, with totals; sortable by any column; CSV export. */
+export function PnlMatrix({
+  result,
+  positions,
+  onSelect,
+}: {
+  result: SetRevaluation;
+  positions: Position[];
+  onSelect: (id: string) => void;
+}) {
+  const [sortBy, setSortBy] = useState<number | null>(null);
+  const [descending, setDescending] = useState(false);
+  const scenarios = result.scenarios;
+  const rows = positions.map((p, i) => ({
+    id: p.id,
+    pnl: scenarios.map((s) => (s.legPnl ? s.legPnl[i] : null)),
+  }));
+  if (sortBy !== null) {
+    rows.sort((a, b) => {
+      const x = a.pnl[sortBy] ?? 0;
+      const y = b.pnl[sortBy] ?? 0;
+      return descending ? y - x : x - y;
+    });
+  }
+  const sort = (col: number) => {
+    if (sortBy === col) setDescending(!descending);
+    else {
+      setSortBy(col);
+      setDescending(false);
+    }
+  };
+  const exportCsv = () =>
+    downloadText(
+      'book-pnl-by-scenario.csv',
+      toCsv(
+        ['leg', ...scenarios.map((s) => s.name)],
+        [['TOTAL', ...scenarios.map((s) => s.total)], ...rows.map((r) => [r.id, ...r.pnl])],
+      ),
+    );
+  return (
+    <div className="space-y-2">
+      <div className="flex items-center justify-between">
+        <h3 className="font-semibold">P&amp;L against base, by leg and scenario</h3>
+        <button
+          type="button"
+          onClick={exportCsv}
+          className="rounded border border-rule px-3 py-1 text-sm hover:border-teal"
+        >
+          Export CSV
+        </button>
+      </div>
+      <div className="max-h-96 overflow-auto rounded border border-rule">
+        <table className="tabular w-full text-right text-sm" data-testid="pnl-matrix">
+          <thead className="sticky top-0 bg-panel text-xs text-muted">
+            <tr>
+              <th scope="col" className="px-2 py-1.5 text-left font-normal">
+                leg
+              </th>
+              {scenarios.map((s, i) => (
+                <th
+                  key={s.id}
+                  scope="col"
+                  className="px-2 py-1.5 font-normal"
+                  aria-sort={sortBy === i ? (descending ? 'descending' : 'ascending') : 'none'}
+                >
+                  <button type="button" onClick={() => sort(i)} className="hover:text-ink">
+                    {s.name}
+                    {sortBy === i ? (descending ? ' ↓' : ' ↑') : ''}
+                  </button>
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            <tr className="border-t border-rule font-semibold" data-testid="pnl-total">
+              <th scope="row" className="px-2 py-1 text-left">
+                Total
+              </th>
+              {scenarios.map((s) => (
+                <td
+                  key={s.id}
+                  className={`px-2 py-1 ${s.total !== null && s.total < 0 ? 'text-stressed' : ''}`}
+                  title={s.issues.map((x) => `${x.path}: ${x.message}`).join('; ')}
+                >
+                  {s.total === null ? 'invalid stress' : formatNumber(s.total, 2)}
+                </td>
+              ))}
+            </tr>
+            {rows.slice(0, MAX_ROWS).map((r) => (
+              <tr key={r.id} className="border-t border-rule/60">
+                <th scope="row" className="px-2 py-1 text-left font-normal">
+                  <button
+                    type="button"
+                    className="text-teal hover:underline"
+                    onClick={() => onSelect(r.id)}
+                  >
+                    {r.id}
+                  </button>
+                </th>
+                {r.pnl.map((v, i) => (
+                  <td
+                    key={scenarios[i].id}
+                    className={`px-2 py-1 ${v !== null && v < 0 ? 'text-stressed' : ''}`}
+                  >
+                    {v === null ? '—' : formatNumber(v, 2)}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,2 @@
+/** The Book feature: positions revalued under every scenario of a set, with the gap ladder. */
+export { BookPage } from './components/BookPage';

@@ -1,0 +1,158 @@
+import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
+import { Link } from 'react-router';
+import { CsvInput } from '../../../components/CsvInput';
+import { ProgressBar } from '../../../components/ProgressBar';
+import { RowIssues } from '../../../components/RowIssues';
+import { ScenarioSelect } from '../../../components/ScenarioSelect';
+import { ToolPage } from '../../../components/ToolPage';
+import { MAX_QUOTES_FILE_BYTES, parseQuotesCsv, type ParsedQuotes } from '../../../engine/fit';
+import { localScenariosQuery, useSaveScenario } from '../../../store/hooks';
+import type { FitSettings } from '../fit-settings';
+import { useFitJob } from '../hooks/use-fit-job';
+import { FitCharts, ResidualMap } from './FitCharts';
+import { FitSettingsForm } from './FitSettingsForm';
+import { ParameterTable, ResidualTable, VerdictPanel } from './FitReport';
+
+const EXAMPLE =
+  'expiry,strike,impliedVol\n2026-12-08,3900,0.31\n2026-12-08,4250,0.16\n0.25,4000,0.22\n0.25,4250,0.185';
+
+export function FitPage() {
+  const scenarios = useQuery(localScenariosQuery);
+  const save = useSaveScenario();
+  const [sourceId, setSourceId] = useState<string | null>(null);
+  const [parsed, setParsed] = useState<ParsedQuotes | null>(null);
+  const [settings, setSettings] = useState<FitSettings | null>(null);
+  const [savedId, setSavedId] = useState<string | null>(null);
+  const job = useFitJob();
+
+  const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
+  if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
+  if (!source)
+    return (
+      <p className="text-muted">
+        Open Sketch once so that this device has a scenario for the market and the starting point.
+      </p>
+    );
+  const quotes = parsed?.quotes ?? [];
+  const { progress, outcome, fitted, error } = job;
+
+  const run = (what: 'fit' | 'verdict') => (chosen: FitSettings) => {
+    setSettings(chosen);
+    setSavedId(null);
+    void job.start(what, {
+      market: source.document.market,
+      startFrom: source.document.model,
+      quotes,
+      settings: chosen,
+    });
+  };
+
+  const saveAsScenario = async () => {
+    if (!fitted) return;
+    const id = crypto.randomUUID();
+    await save.mutateAsync({
+      ...source.document,
+      id,
+      name: `${source.document.name} — fitted ${fitted.model.kind}`,
+      model: fitted.model,
+      stress: {},
+      runs: [],
+      fit: {
+        quotes,
+        rmseVolPoints: fitted.rmseVolPoints,
+        weights: settings?.weights,
+        fixed: settings?.fixed,
+      },
+    });
+    setSavedId(id);
+  };
+
+  return (
+    <ToolPage
+      title="Fit"
+      asideWidth="22rem"
+      aside={
+        <>
+          <ScenarioSelect
+            label="Market and starting point from"
+            scenarios={scenarios.data!}
+            value={source.id}
+            onChange={setSourceId}
+          >
+            <span className="text-xs text-muted">
+              spot {source.document.market.spot}, valuation {source.document.valuationDate}
+            </span>
+          </ScenarioSelect>
+          <FitSettingsForm
+            disabled={quotes.length === 0 || progress !== null}
+            onFit={run('fit')}
+            onVerdict={run('verdict')}
+          />
+          {progress !== null && (
+            <ProgressBar fraction={progress} onCancel={job.cancel} testId="fit-progress" />
+          )}
+          {error && (
+            <p role="alert" className="text-sm text-stressed">
+              {error}
+            </p>
+          )}
+        </>
+      }
+    >
+      <CsvInput
+        hint="expiry (date or years), strike, and impliedVol — or type with price, or bid and ask; optional forward, or rate and dividend, per row"
+        placeholder={EXAMPLE}
+        maxBytes={MAX_QUOTES_FILE_BYTES}
+        testId="quotes-file"
+        label="Quotes CSV"
+        onText={(t) =>
+          setParsed(parseQuotesCsv(t, source.document.market, source.document.valuationDate))
+        }
+        onTooLarge={(m) => setParsed({ quotes: [], issues: [], fileError: m })}
+      />
+      {parsed?.fileError && (
+        <p role="alert" className="text-sm text-stressed">
+          {parsed.fileError}
+        </p>
+      )}
+      {parsed && !parsed.fileError && (
+        <p className="text-sm" data-testid="quotes-summary">
+          {parsed.quotes.length} quotes kept over {new Set(parsed.quotes.map((q) => q.expiry)).size}{' '}
+          expiries, {parsed.issues.length} rows rejected.
+        </p>
+      )}
+      {parsed && <RowIssues issues={parsed.issues} />}
+      {fitted && (
+        <div className="space-y-4">
+          {outcome?.kind === 'verdict' && <VerdictPanel verdict={outcome.verdict} />}
+          <ParameterTable result={fitted} />
+          <div className="flex items-center gap-3">
+            <button
+              type="button"
+              onClick={() => void saveAsScenario()}
+              className="rounded bg-teal px-4 py-1.5 text-sm font-semibold text-paper"
+            >
+              Save as scenario
+            </button>
+            {savedId && (
+              <Link
+                to={`/?scenario=${savedId}`}
+                className="text-sm text-teal underline"
+                data-testid="saved-scenario-link"
+              >
+                Saved — open it in Sketch
+              </Link>
+            )}
+          </div>
+          <FitCharts
+            residuals={fitted.residuals}
+            compare={outcome?.kind === 'verdict' ? outcome.verdict.heston.residuals : undefined}
+          />
+          <ResidualMap residuals={fitted.residuals} />
+          <ResidualTable result={fitted} />
+        </div>
+      )}
+    </ToolPage>
+  );
+}

@@ -1,0 +1,165 @@
+import { useState } from 'react';
+import type { CalibrationResult, JumpsVerdict } from '../../../engine/fit';
+import { formatTenor } from '../../../components/format';
+
+/** Parameters, fit quality and flags of one calibration. */
+export function ParameterTable({ result }: { result: CalibrationResult }) {
+  const entries = Object.entries(result.model).filter(([k]) => k !== 'kind') as [string, number][];
+  return (
+    <div className="space-y-2" data-testid="fit-parameters">
+      <table className="tabular text-sm">
+        <tbody>
+          {entries.map(([k, v]) => (
+            <tr key={k} className="border-b border-rule/60">
+              <th scope="row" className="py-1 pr-6 text-left font-normal">
+                {k}
+              </th>
+              <td className="py-1 text-right">{v.toPrecision(5)}</td>
+              <td className="py-1 pl-3 text-xs text-stressed">
+                {result.onBounds.includes(k) ? 'on its bound' : ''}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="tabular text-sm" data-testid="fit-quality">
+        RMSE {result.rmseVolPoints.toFixed(3)} vol points · SSE {result.sseVolPoints.toFixed(3)} ·{' '}
+        {result.iterations} iterations · {result.elapsedMs.toFixed(0)} ms
+        {result.feller && ` · Feller ${result.feller.holds ? 'holds' : 'does not hold'}`}
+      </p>
+      <p className="tabular text-xs text-muted">
+        RMSE by expiry:{' '}
+        {result.rmseByExpiry
+          .map((e) => `${formatTenor(e.expiry)} ${e.rmseVolPoints.toFixed(2)}`)
+          .join(' · ')}
+      </p>
+    </div>
+  );
+}
+
+export function ResidualTable({ result }: { result: CalibrationResult }) {
+  const [expiry, setExpiry] = useState<number | 'all'>('all');
+  const [byError, setByError] = useState(false);
+  const expiries = [...new Set(result.residuals.map((r) => r.expiry))].sort((a, b) => a - b);
+  const rows = result.residuals
+    .filter((r) => expiry === 'all' || r.expiry === expiry)
+    .map((r) => ({ ...r, err: r.model === null ? null : 100 * (r.model - r.market) }))
+    .sort((a, b) =>
+      byError
+        ? Math.abs(b.err ?? 99) - Math.abs(a.err ?? 99)
+        : a.expiry - b.expiry || a.strike - b.strike,
+    );
+  return (
+    <div className="space-y-2">
+      <div className="flex items-center gap-3 text-sm">
+        <select
+          aria-label="Residuals for expiry"
+          value={String(expiry)}
+          onChange={(e) => setExpiry(e.target.value === 'all' ? 'all' : Number(e.target.value))}
+          className="rounded border border-rule bg-panel px-2 py-1"
+        >
+          <option value="all">all expiries</option>
+          {expiries.map((t) => (
+            <option key={t} value={t}>
+              {formatTenor(t)}
+            </option>
+          ))}
+        </select>
+        <label className="flex items-center gap-1">
+          <input type="checkbox" checked={byError} onChange={(e) => setByError(e.target.checked)} />{' '}
+          largest errors first
+        </label>
+      </div>
+      <div className="max-h-72 overflow-auto rounded border border-rule">
+        <table className="tabular w-full text-right text-sm" data-testid="residual-table">
+          <thead className="sticky top-0 bg-panel text-xs text-muted">
+            <tr>
+              {['expiry', 'strike', 'quote vol %', 'model vol %', 'model − quote (vol pts)'].map(
+                (h) => (
+                  <th key={h} className="px-2 py-1 font-normal">
+                    {h}
+                  </th>
+                ),
+              )}
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={`${r.expiry}-${r.strike}`} className="border-t border-rule/60">
+                <td className="px-2 py-1">{formatTenor(r.expiry)}</td>
+                <td className="px-2 py-1">{r.strike.toFixed(2)}</td>
+                <td className="px-2 py-1">{(100 * r.market).toFixed(2)}</td>
+                <td className="px-2 py-1">{r.model === null ? '—' : (100 * r.model).toFixed(2)}</td>
+                <td
+                  className={`px-2 py-1 ${r.err !== null && Math.abs(r.err) > 0.5 ? 'text-stressed' : ''}`}
+                >
+                  {r.err === null ? '—' : r.err.toFixed(3)}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}
+
+export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
+  const f = (v: number | null) => (v === null ? '—' : v.toFixed(3));
+  return (
+    <div className="space-y-2 rounded border border-rule p-3" data-testid="jumps-verdict">
+      <h3 className="font-semibold">Are the jumps worth it?</h3>
+      <p className={verdict.jumpsEarnTheirKeep ? 'text-teal' : ''}>{verdict.summary}</p>
+      <table className="tabular text-sm">
+        <thead className="text-xs text-muted">
+          <tr>
+            <th className="pr-6 text-left font-normal">RMSE (vol pts)</th>
+            <th className="px-3 font-normal">Heston</th>
+            <th className="px-3 font-normal">Bates</th>
+            <th className="px-3 font-normal">quotes</th>
+          </tr>
+        </thead>
+        <tbody>
+          {verdict.buckets.map((b) => (
+            <tr key={b.bucket}>
+              <th scope="row" className="pr-6 text-left font-normal">
+                {b.bucket}
+              </th>
+              <td className="px-3 text-right">{f(b.heston)}</td>
+              <td className="px-3 text-right">{f(b.bates)}</td>
+              <td className="px-3 text-right">{b.count}</td>
+            </tr>
+          ))}
+          <tr>
+            <th scope="row" className="pr-6 text-left font-normal">
+              all
+            </th>
+            <td className="px-3 text-right">{f(verdict.heston.rmseVolPoints)}</td>
+            <td className="px-3 text-right">{f(verdict.bates.rmseVolPoints)}</td>
+            <td />
+          </tr>
+          <tr>
+            <th scope="row" className="pr-6 text-left font-normal">
+              AIC
+            </th>
+            <td className="px-3 text-right">{verdict.aic.heston.toFixed(1)}</td>
+            <td className="px-3 text-right">{verdict.aic.bates.toFixed(1)}</td>
+            <td />
+          </tr>
+          <tr>
+            <th scope="row" className="pr-6 text-left font-normal">
+              BIC
+            </th>
+            <td className="px-3 text-right">{verdict.bic.heston.toFixed(1)}</td>
+            <td className="px-3 text-right">{verdict.bic.bates.toFixed(1)}</td>
+            <td />
+          </tr>
+        </tbody>
+      </table>
+      <p className="text-xs text-muted">
+        AIC and BIC charge each model for its parameters (5 for Heston, 8 for Bates); lower is
+        better.
+      </p>
+    </div>
+  );
+}

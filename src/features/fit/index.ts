@@ -1,0 +1,2 @@
+/** The Fit feature: quotes uploaded and a model calibrated to them. */
+export { FitPage } from './components/FitPage';

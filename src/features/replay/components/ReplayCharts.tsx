@@ -1,0 +1,98 @@
+/** The replayed hedges' P&L histograms on shared bins, and where the mean and tail P&L came from. */
+import type { Data, Layout } from 'plotly.js';
+import { useMemo } from 'react';
+import type { ReplayRequest, ReplayResult, PnlHistogram } from '../../../engine/replay';
+import { chartFrame, chartTheme } from '../../../components/chart-theme';
+import { PlotlyChart } from '../../../components/PlotlyChart';
+import { useTheme } from '../../../components/theme';
+
+/** Short enough for a legend under a half-width chart. */
+export const legendName = (r: ReplayRequest, k: number) =>
+  `hedge ${k + 1}: ${SHORT_LABELS[r.hedge.method]}`;
+const SHORT_LABELS = { none: 'no hedge', 'bs-delta': 'BS delta', 'model-delta': 'model delta' };
+
+export function hedgeColours(t: ReturnType<typeof chartTheme>) {
+  return [t.teal, t.base];
+}
+
+export function ReplayCharts({
+  requests,
+  results,
+  histograms,
+}: {
+  requests: ReplayRequest[];
+  results: ReplayResult[];
+  histograms: PnlHistogram[];
+}) {
+  const theme = useTheme();
+  const figures = useMemo(() => {
+    const t = chartTheme(theme);
+    const colours = hedgeColours(t);
+    // a fresh axis object for every chart: Plotly writes its ranges into the layout it is given
+    const axis = () => ({ gridcolor: t.grid, zerolinecolor: t.grid, tickfont: { color: t.muted } });
+    const layout = (title: string): Partial<Layout> => ({
+      ...chartFrame(t, 11),
+      margin: { l: 55, r: 10, t: 30, b: 40 },
+      height: 300,
+      title: { text: title, font: { size: 13 }, x: 0 },
+      legend: { orientation: 'h', y: -0.22 },
+      xaxis: axis(),
+      yaxis: axis(),
+    });
+    const h0 = histograms[0];
+    const width = (h0.hi - h0.lo) / h0.counts.length;
+    const centres = h0.counts.map((_, i) => h0.lo + (i + 0.5) * width);
+    const histogram: Data[] = histograms.map(
+      (h, k) =>
+        ({
+          type: 'bar',
+          x: centres,
+          y: h.counts,
+          name: legendName(requests[k], k),
+          marker: { color: colours[k], opacity: 0.55 },
+        }) as Data,
+    );
+    const parts = [
+      'mean,<br>no jump',
+      'mean,<br>jump',
+      'worst 1 %,<br>no jump',
+      'worst 1 %,<br>jump',
+    ];
+    const attribution: Data[] = results.map(
+      (r, k) =>
+        ({
+          type: 'bar',
+          x: parts,
+          y: [
+            r.attribution.diffusion,
+            r.attribution.jumps,
+            r.attribution.tailDiffusion,
+            r.attribution.tailJumps,
+          ],
+          name: legendName(requests[k], k),
+          marker: { color: colours[k] },
+        }) as Data,
+    );
+    return {
+      histogram: {
+        data: histogram,
+        layout: {
+          ...layout('P&L per path at the horizon (paths per bin, log scale)'),
+          yaxis: { ...axis(), type: 'log', dtick: 1 },
+          barmode: 'overlay',
+          bargap: 0,
+        },
+      },
+      attribution: {
+        data: attribution,
+        layout: { ...layout('P&L booked on steps with and without a jump'), barmode: 'group' },
+      },
+    };
+  }, [requests, results, histograms, theme]);
+  return (
+    <div className="grid gap-4 xl:grid-cols-2" data-testid="replay-charts">
+      <PlotlyChart data={figures.histogram.data} layout={figures.histogram.layout} />
+      <PlotlyChart data={figures.attribution.data} layout={figures.attribution.layout} />
+    </div>
+  );
+}

@@ -1,0 +1,214 @@
+import { useEffect, useState } from 'react';
+import { ToolPage } from '../../../components/ToolPage';
+import { ProgressBar } from '../../../components/ProgressBar';
+import { SaveRunButton } from '../../../components/SaveRunButton';
+import { ScenarioSelect } from '../../../components/ScenarioSelect';
+import { SeedField, SettingField } from '../../../components/SettingField';
+import { DrillDownPanel } from './DrillDownPanel';
+import { HedgeFields } from './HedgeFields';
+import { LegsTable } from './LegsTable';
+import { ReplayCharts } from './ReplayCharts';
+import { ReplayStats } from './ReplayStats';
+import { SavedRuns } from './SavedRuns';
+import { formatNumber } from '../../../components/format';
+import {
+  checkReplay,
+  runRequests,
+  savedReplayRuns,
+  summaryOf,
+  type ReplayCheck,
+  type SavedReplayRun,
+} from '../../../engine/replay';
+import { ENGINE_VERSION } from '../../../engine/core';
+import { useSaveScenario } from '../../../store/hooks';
+import { useScenarioSource } from '../../../store/use-scenario-source';
+import { formFromRun, loadForm, storeForm } from '../form/form-storage';
+import { defaultReplayForm, requestsFromForm, type ReplayForm } from '../form/replay-form';
+import { useReplayRun } from '../hooks/use-replay-run';
+
+export function ReplayPage() {
+  const { scenarios, source, stressed, setSourceId } = useScenarioSource();
+  const save = useSaveScenario();
+  const [form, setForm] = useState<ReplayForm | null>(loadForm);
+  const [legIssues, setLegIssues] = useState<Record<number, string>>({});
+  const [formError, setFormError] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
+  const [check, setCheck] = useState<{ id: string; result: ReplayCheck } | null>(null);
+  const { start, cancel, progress, view, error } = useReplayRun();
+  useEffect(() => {
+    if (form) storeForm(form);
+  }, [form]);
+  if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
+  if (!source || !stressed)
+    return (
+      <p className="text-muted">Open Sketch once so that this device has a scenario to replay.</p>
+    );
+  const f = form ?? defaultReplayForm(stressed.market.spot);
+  const update = (next: ReplayForm) => setForm(next);
+  const runs = savedReplayRuns(source.document.runs);
+
+  const go = () => {
+    if (stressed.issues.length > 0)
+      return setFormError(
+        `the scenario's stress is out of range: ${stressed.issues[0].path} ${stressed.issues[0].message}`,
+      );
+    const checked = requestsFromForm(f, stressed.market, stressed.model);
+    setSaved(false);
+    setCheck(null);
+    if (!checked.ok) {
+      setLegIssues(checked.legIssues);
+      setFormError(checked.error);
+      return;
+    }
+    setLegIssues({});
+    setFormError(null);
+    void start(checked.requests);
+  };
+  const saveRun = async () => {
+    if (!view) return;
+    const entry: SavedReplayRun = {
+      kind: 'replay',
+      id: crypto.randomUUID(),
+      savedAt: new Date().toISOString(),
+      engineVersion: ENGINE_VERSION,
+      request: view.requests[0],
+      ...(view.requests[1] ? { compare: view.requests[1].hedge } : {}),
+      seed: view.requests[0].seed,
+      summaries: view.results.map(summaryOf),
+    };
+    await save.mutateAsync({
+      ...source.document,
+      runs: [...(source.document.runs ?? []), entry as unknown as Record<string, unknown>],
+    });
+    setSaved(true);
+  };
+  const replaySaved = async (run: SavedReplayRun) => {
+    setCheck(null);
+    const fresh = await start(runRequests(run), true);
+    if (fresh)
+      setCheck({
+        id: run.id,
+        result: checkReplay(run, fresh.results.map(summaryOf), ENGINE_VERSION),
+      });
+  };
+
+  return (
+    <ToolPage
+      title="Replay"
+      asideWidth="26rem"
+      aside={
+        <>
+          <ScenarioSelect
+            label="Scenario (with its stress)"
+            scenarios={scenarios.data!}
+            value={source.id}
+            onChange={setSourceId}
+          />
+          <p className="text-xs text-muted">
+            Spot {formatNumber(stressed.market.spot, 2)}; the legs are bought or sold at the
+            model&apos;s price and hedged in the underlying until the last one expires.
+          </p>
+          <LegsTable
+            rows={f.legs}
+            onChange={(legs) => update({ ...f, legs })}
+            issues={legIssues}
+            spot={stressed.market.spot}
+          />
+          <HedgeFields
+            label="Hedge"
+            value={f.hedge}
+            onChange={(hedge) => update({ ...f, hedge })}
+          />
+          <label className="flex items-center gap-2 text-sm">
+            <input
+              type="checkbox"
+              checked={f.compareOn}
+              onChange={(e) => update({ ...f, compareOn: e.target.checked })}
+            />
+            compare with a second hedge on the same paths
+          </label>
+          {f.compareOn && (
+            <HedgeFields
+              label="Compared hedge"
+              value={f.compare}
+              onChange={(compare) => update({ ...f, compare })}
+            />
+          )}
+          <SettingField
+            label="Paths"
+            value={f.paths}
+            onChange={(paths) => update({ ...f, paths })}
+            inputWidth="9rem"
+          />
+          <SeedField value={f.seed} onChange={(seed) => update({ ...f, seed })} inputWidth="9rem" />
+          <div className="flex gap-3">
+            <button
+              type="button"
+              onClick={go}
+              disabled={progress !== null}
+              className="rounded bg-teal px-4 py-1.5 font-semibold text-paper disabled:opacity-50"
+            >
+              Replay hedge
+            </button>
+            <button
+              type="button"
+              className="text-sm text-muted"
+              onClick={() => update(defaultReplayForm(stressed.market.spot))}
+            >
+              Reset form
+            </button>
+          </div>
+          {progress !== null && (
+            <ProgressBar fraction={progress} onCancel={cancel} testId="replay-progress" />
+          )}
+          {(formError || error) && (
+            <p role="alert" className="text-sm text-stressed">
+              {formError ?? error}
+            </p>
+          )}
+          <h2 className="pt-2 text-lg font-semibold">Saved runs</h2>
+          <SavedRuns
+            runs={runs}
+            busy={progress !== null}
+            check={check}
+            onOpen={(run) => update(formFromRun(run))}
+            onReplay={(run) => void replaySaved(run)}
+          />
+        </>
+      }
+    >
+      {!view ? (
+        <p className="text-muted">
+          Build the position, choose the hedge and press Replay hedge. The same position, hedge,
+          paths and seed give the same P&amp;L to the last bit on any machine and with any number of
+          workers.
+        </p>
+      ) : (
+        <>
+          <p className="tabular text-sm" data-testid="replay-summary">
+            {view.results[0].paths.toLocaleString()} paths × {view.results[0].steps} rebalances,
+            seed {view.requests[0].seed} ·{' '}
+            {view.fromCache
+              ? 'opened from the cache'
+              : `${view.results.reduce((a, r) => a + r.elapsedMs, 0).toFixed(0)} ms on ${view.workers} worker${view.workers > 1 ? 's' : ''}`}{' '}
+            · position bought for {formatNumber(view.results[0].premium, 4)} (negative: premium
+            received) · P&amp;L discounted to today
+          </p>
+          <ReplayStats requests={view.requests} results={view.results} />
+          <div className="flex items-center gap-3">
+            <SaveRunButton onSave={() => void saveRun()} saved={saved} />
+          </div>
+          <ReplayCharts
+            requests={view.requests}
+            results={view.results}
+            histograms={view.histograms}
+          />
+          <DrillDownPanel
+            requests={view.requests}
+            worstPaths={view.results.map((r) => r.worstPath)}
+          />
+        </>
+      )}
+    </ToolPage>
+  );
+}

@@ -1,0 +1,202 @@
+import { ReadOnlyNote } from './ReadOnlyNote';
+import { useMemo, useState } from 'react';
+import { CautionNote } from '../../../components/CautionNote';
+import { formatTenor } from '../../../components/format';
+import { DensityChart } from './DensityChart';
+import { ExpiryPicker } from './ExpiryPicker';
+import { ModelForm } from './ModelForm';
+import { AXIS_LABEL, SmileChart, type AxisMode } from './SmileChart';
+import { SmileTable } from './SmileTable';
+import { StressPanel } from './StressPanel';
+import { TermStructureChart } from './TermStructureChart';
+import { NO_STRESS, type OptionSpec, type Stress } from '../../../engine/core';
+import { ScenarioPicker } from './ScenarioPicker';
+import { TargetVols } from './TargetVols';
+import type { TargetVol } from '../../../engine/fit';
+import { SensitivityTable } from './SensitivityTable';
+import { smileRequest, useGreeks, useSensitivities, useSmiles } from '../hooks/use-smiles';
+import { useSketchScenario, type SaveState } from '../hooks/use-sketch-scenario';
+
+const SAVE_LABEL: Record<SaveState, string> = {
+  loading: 'Opening…',
+  saved: 'Saved on this device',
+  saving: 'Saving…',
+  unsaved: 'Saving…',
+  invalid: 'Not saved: fix the fields marked in red',
+  error: 'Could not save',
+};
+
+export function SketchPage() {
+  const { doc, update, saveState, issues, loadError } = useSketchScenario();
+  const [axis, setAxis] = useState<AxisMode>('moneyness');
+  const [tableExpiryIndex, setTableExpiryIndex] = useState(0);
+  const errors = useMemo(
+    () => Object.fromEntries(issues.map((i) => [i.path, i.message])),
+    [issues],
+  );
+  const valid = doc !== null && issues.length === 0;
+  const expiries = useMemo(() => doc?.grid.expiries ?? [], [doc]);
+  const tableIndex = Math.min(tableExpiryIndex, Math.max(expiries.length - 1, 0));
+  const request = useMemo(
+    () => (valid && doc ? smileRequest(doc, expiries[tableIndex]) : null),
+    [valid, doc, expiries, tableIndex],
+  );
+  const smiles = useSmiles(request);
+  const slice = smiles.data?.base.slices[tableIndex] ?? null;
+  const options = useMemo<OptionSpec[] | null>(
+    () =>
+      slice
+        ? slice.strikes.map((strike, i) => ({
+            type: slice.logMoneyness[i] < 0 ? 'put' : 'call',
+            strike,
+            expiry: slice.expiry,
+          }))
+        : null,
+    [slice],
+  );
+  const greeks = useGreeks(
+    valid && doc ? doc.market : null,
+    valid && doc ? doc.model : null,
+    options,
+  );
+  const sensitivities = useSensitivities(
+    valid && doc ? doc.market : null,
+    valid && doc ? doc.model : null,
+    slice ? slice.expiry : null,
+    slice ? slice.logMoneyness : null,
+  );
+
+  if (loadError && !doc)
+    return (
+      <p role="alert" className="text-stressed">
+        {loadError}
+      </p>
+    );
+  if (!doc) return <p className="text-muted">Opening the scenario…</p>;
+  const stress: Stress = { ...NO_STRESS, ...(doc.stress ?? {}) };
+  const targets = (Array.isArray(doc.targets) ? doc.targets : []) as TargetVol[];
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
+      <aside className="min-w-0 space-y-4" aria-label="Scenario">
+        <ScenarioPicker currentId={doc.id} />
+        <div className="space-y-1">
+          <input
+            aria-label="Scenario name"
+            value={doc.name}
+            onChange={(e) => update({ ...doc, name: e.target.value })}
+            className={`w-full rounded border bg-panel px-2 py-1 text-lg font-semibold ${errors.name ? 'border-stressed' : 'border-transparent hover:border-rule'}`}
+          />
+          <p className="text-xs text-muted" data-testid="save-state" data-state={saveState}>
+            {SAVE_LABEL[saveState]} · valuation {doc.valuationDate}
+          </p>
+          {errors.name && <p className="text-xs text-stressed">name: {errors.name}</p>}
+          <ReadOnlyNote scenarioId={doc.id} />
+        </div>
+        <ModelForm
+          market={doc.market}
+          model={doc.model}
+          errors={errors}
+          onMarket={(market) => update({ ...doc, market })}
+          onModel={(model) => update({ ...doc, model })}
+        />
+        <TargetVols doc={doc} targets={targets} onTargets={(t) => update({ ...doc, targets: t })} />
+        <StressPanel
+          stress={stress}
+          issues={smiles.data?.stressIssues ?? []}
+          onChange={(s) => update({ ...doc, stress: s })}
+        />
+      </aside>
+
+      <section className="min-w-0 space-y-5" aria-label="Smiles">
+        <CautionNote />
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <ExpiryPicker
+            expiries={expiries}
+            onChange={(e) => update({ ...doc, grid: { ...doc.grid, expiries: e } })}
+          />
+          <div role="radiogroup" aria-label="Horizontal axis" className="flex gap-1 text-sm">
+            {(Object.keys(AXIS_LABEL) as AxisMode[]).map((m) => (
+              <button
+                key={m}
+                type="button"
+                role="radio"
+                aria-checked={axis === m}
+                onClick={() => setAxis(m)}
+                className={`rounded px-2 py-0.5 ${axis === m ? 'bg-ink text-paper' : 'text-muted hover:text-ink'}`}
+              >
+                {m === 'strike' ? 'Strike' : m === 'moneyness' ? 'ln(K/F)' : 'Delta'}
+              </button>
+            ))}
+          </div>
+        </div>
+        {!valid ? (
+          <p role="alert" className="rounded border border-stressed/40 p-3 text-sm text-stressed">
+            The smiles wait for valid inputs:{' '}
+            {issues.map((i) => `${i.path} ${i.message}`).join('; ')}
+          </p>
+        ) : smiles.isError ? (
+          <p role="alert" className="text-stressed">
+            The engine failed: {(smiles.error as Error).message}
+          </p>
+        ) : !smiles.data ? (
+          <p className="text-muted">Computing smiles…</p>
+        ) : (
+          <>
+            <div data-testid="smile-chart" data-stressed={smiles.data.stressed ? 'yes' : 'no'}>
+              <h2 className="sr-only">Implied volatility by {AXIS_LABEL[axis]}</h2>
+              <SmileChart
+                base={smiles.data.base}
+                stressed={smiles.data.stressed}
+                mode={axis}
+                targets={targets}
+              />
+              <p className="text-xs text-muted">
+                {AXIS_LABEL[axis]} · implied vol in % · computed in{' '}
+                {smiles.data.elapsedMs.toFixed(1)} ms · engine {smiles.data.engineVersion}
+              </p>
+            </div>
+            <TermStructureChart base={smiles.data.base} stressed={smiles.data.stressed} />
+            <div className="space-y-2">
+              <div className="flex items-center gap-3">
+                <h2 className="text-lg font-semibold">Expiry detail</h2>
+                <select
+                  aria-label="Expiry for the table"
+                  value={tableIndex}
+                  onChange={(e) => setTableExpiryIndex(Number(e.target.value))}
+                  className="rounded border border-rule bg-panel px-2 py-1 text-sm"
+                >
+                  {expiries.map((t, i) => (
+                    <option key={t} value={i}>
+                      {formatTenor(t)}
+                    </option>
+                  ))}
+                </select>
+              </div>
+              {slice && (
+                <SmileTable
+                  slice={slice}
+                  stressedSlice={smiles.data.stressed?.slices[tableIndex] ?? null}
+                  greeks={greeks.data?.results ?? null}
+                  scenarioName={doc.name}
+                />
+              )}
+              {sensitivities.data && slice && (
+                <SensitivityTable
+                  sensitivities={sensitivities.data}
+                  logMoneyness={slice.logMoneyness}
+                />
+              )}
+              {smiles.data.density && (
+                <DensityChart
+                  density={smiles.data.density}
+                  title={`Density of log-returns at ${formatTenor(expiries[tableIndex])}`}
+                />
+              )}
+            </div>
+          </>
+        )}
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,110 @@
+/**
+ * The scenario being sketched: loaded from the device (by `?scenario=`, else the most recently
+ * edited, else the demo desk's), edited in memory, and saved back to IndexedDB shortly after
+ * each valid change, so a reload or a crash loses at most the last fraction of a second.
+ */
+import { useQueryClient } from '@tanstack/react-query';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useSearchParams } from 'react-router';
+import { type ScenarioDocument, parseScenario, newScenario } from '../../../engine/core';
+import { appDb } from '../../../store/db';
+import { seedDemoScenariosOnce } from '../../../store/demo-seed';
+import { getScenario, listScenarios, saveScenario } from '../../../store/scenarios';
+import { nudgeSync } from '../../../sync/sync-loop';
+
+export type SaveState = 'loading' | 'saved' | 'saving' | 'unsaved' | 'invalid' | 'error';
+
+async function initialScenario(requested: string | null): Promise<ScenarioDocument> {
+  const db = appDb();
+  if (requested) {
+    const found = await getScenario(db, requested);
+    if (found) return found.document;
+  }
+  await seedDemoScenariosOnce();
+  const all = await listScenarios(db);
+  if (all.length > 0) return all[0].document;
+  // every scenario was deleted: start a fresh one
+  const fresh = newScenario(
+    crypto.randomUUID(),
+    'New scenario',
+    new Date().toISOString().slice(0, 10),
+  );
+  await saveScenario(db, fresh);
+  return fresh;
+}
+
+export function useSketchScenario() {
+  const [params, setParams] = useSearchParams();
+  const requested = params.get('scenario');
+  const [doc, setDoc] = useState<ScenarioDocument | null>(null);
+  const [saveState, setSaveState] = useState<SaveState>('loading');
+  const [loadError, setLoadError] = useState<string | null>(null);
+  const qc = useQueryClient();
+  const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
+  const pending = useRef<ScenarioDocument | null>(null);
+
+  useEffect(() => {
+    let live = true;
+    initialScenario(requested)
+      .then((d) => {
+        if (!live) return;
+        setDoc(d);
+        setSaveState('saved');
+        if (requested !== d.id) setParams({ scenario: d.id }, { replace: true });
+      })
+      .catch((e: Error) => live && setLoadError(e.message));
+    return () => {
+      live = false;
+    };
+    // load once per requested id
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- setParams is stable in practice; reloading on it would loop
+  }, [requested]);
+
+  const flush = useCallback(async () => {
+    const d = pending.current;
+    if (!d) return;
+    pending.current = null;
+    setSaveState('saving');
+    try {
+      await saveScenario(appDb(), d);
+      nudgeSync();
+      setSaveState(pending.current ? 'unsaved' : 'saved');
+      void qc.invalidateQueries({ queryKey: ['local', 'scenarios'] });
+    } catch (e) {
+      setSaveState('error');
+      setLoadError(`Could not save on this device: ${(e as Error).message}`);
+    }
+  }, [qc]);
+
+  useEffect(() => {
+    const onHide = () => void flush();
+    window.addEventListener('pagehide', onHide);
+    return () => {
+      window.removeEventListener('pagehide', onHide);
+      void flush();
+    };
+  }, [flush]);
+
+  const issues = useMemo(() => {
+    if (!doc) return [];
+    const r = parseScenario(doc);
+    return r.ok ? [] : r.issues;
+  }, [doc]);
+
+  const update = useCallback(
+    (next: ScenarioDocument) => {
+      setDoc(next);
+      if (!parseScenario(next).ok) {
+        setSaveState('invalid');
+        return;
+      }
+      pending.current = next;
+      setSaveState('unsaved');
+      clearTimeout(timer.current);
+      timer.current = setTimeout(() => void flush(), 300);
+    },
+    [flush],
+  );
+
+  return { doc, update, saveState, issues, loadError };
+}

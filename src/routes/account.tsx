@@ -1,0 +1,6 @@
+/** `/account`: the signed-in user's account. */
+import { AccountPage } from '../features/account';
+
+export default function AccountRoute() {
+  return <AccountPage />;
+}

@@ -1,0 +1,6 @@
+/** `/desk`: the Desk page. */
+import { DeskPage } from '../features/desk';
+
+export default function DeskRoute() {
+  return <DeskPage />;
+}
