@@ -30,7 +30,10 @@ afterAll(() => {
 
 describe('lint keeps the layers apart', () => {
   it('fails on a circular import', async () => {
-    plant('src/features/planted-cycle/a.ts', "import { b } from './b';\nexport const a = () => b;\n");
+    plant(
+      'src/features/planted-cycle/a.ts',
+      "import { b } from './b';\nexport const a = () => b;\n",
+    );
     const b = plant(
       'src/features/planted-cycle/b.ts',
       "import { a } from './a';\nexport const b = () => a;\n",
