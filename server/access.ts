@@ -6,7 +6,9 @@
 import type { Knex } from 'knex';
 import { HttpError } from './errors';
 
-export type Role = 'lead' | 'trader' | 'analyst';
+import type { Role } from '../src/contracts';
+
+export type { Role };
 /** the caller's standing on a set: its owner, or their role on the set's desk */
 export type Standing = 'owner' | Role;
 

@@ -2,19 +2,11 @@
 import { Router, type Response } from 'express';
 import rateLimit from 'express-rate-limit';
 import type { Knex } from 'knex';
-import { z } from 'zod';
+import { registerBody, signinBody } from '../../src/contracts';
 import { hashPassword, verifyPassword } from '../auth/passwords';
 import { requireUser } from '../auth/session';
 import { issueToken, SESSION_COOKIE, SESSION_SECONDS } from '../auth/tokens';
 import { HttpError, parseOr400 } from '../errors';
-
-const email = z.string().trim().toLowerCase().email('must be an e-mail address').max(254);
-const registerBody = z.object({
-  email,
-  password: z.string().min(10, 'must be at least 10 characters').max(200),
-  name: z.string().trim().min(1, 'must not be empty').max(100),
-});
-const signinBody = z.object({ email, password: z.string().min(1).max(200) });
 
 export function setSessionCookie(res: Response, token: string, secure: boolean) {
   res.cookie(SESSION_COOKIE, token, {

@@ -6,19 +6,17 @@
 import { Router, type RequestHandler, type Response } from 'express';
 import rateLimit from 'express-rate-limit';
 import type { Knex } from 'knex';
-import { z } from 'zod';
+import {
+  passwordChangeBody as changeBody,
+  resetBody,
+  resetRequestBody as requestBody,
+} from '../../src/contracts';
 import { hashToken, newOneTimeToken } from '../auth/one-time-tokens';
 import { hashPassword, verifyPassword } from '../auth/passwords';
 import { issueToken } from '../auth/tokens';
 import { HttpError, parseOr400 } from '../errors';
 import type { Mailer } from '../mail/mailer';
 
-const newPassword = z.string().min(10, 'must be at least 10 characters').max(200);
-const changeBody = z.object({ currentPassword: z.string().min(1).max(200), newPassword });
-const requestBody = z.object({
-  email: z.string().trim().toLowerCase().email('must be an e-mail address').max(254),
-});
-const resetBody = z.object({ token: z.string().min(20).max(200), newPassword });
 export const RESET_MINUTES = 60;
 
 export function passwordRouter(

@@ -1,7 +1,7 @@
 /** Scenario sets: personal (no desk) or owned by a desk. */
 import { Router, type RequestHandler } from 'express';
 import type { Knex } from 'knex';
-import { z } from 'zod';
+import { setCreateBody as createBody, setPatchBody as patchBody } from '../../src/contracts';
 import {
   canManage,
   canWrite,
@@ -13,10 +13,6 @@ import {
   userSpace,
 } from '../access';
 import { HttpError, notFound, parseOr400 } from '../errors';
-
-const name = z.string().trim().min(1, 'must not be empty').max(120);
-const createBody = z.object({ name, deskId: z.string().uuid('must be a UUID').optional() });
-const patchBody = z.object({ name });
 
 export function setsRouter(db: Knex, auth: RequestHandler) {
   const r = Router();

@@ -1,14 +1,11 @@
 /** Sync: push mutations, pull changes since a cursor, a scenario's revision history. */
 import { Router, type RequestHandler } from 'express';
 import type { Knex } from 'knex';
-import { z } from 'zod';
 import { isUuid, setStanding } from '../access';
 import { notFound, parseOr400 } from '../errors';
-import { applyMutation, mutationSchema, type MutationResult } from '../sync/push';
+import { pullQuery, pushBody, type MutationResult } from '../../src/contracts';
+import { applyMutation } from '../sync/push';
 import { pull } from '../sync/pull';
-
-const pushBody = z.object({ mutations: z.array(mutationSchema).min(1).max(200) });
-const pullQuery = z.object({ since: z.string().max(4000).optional() });
 
 export function syncRouter(db: Knex, auth: RequestHandler): Router {
   const r = Router();

@@ -6,7 +6,7 @@
 import type { Knex } from 'knex';
 import { canManage, canWrite, spacesOf, type Standing } from '../access';
 import type { SessionUser } from '../auth/session';
-import type { PullAnswer } from '../../src/sync/protocol';
+import type { PullAnswer } from '../../src/contracts';
 import { HttpError } from '../errors';
 import { prepared } from '../prepared';
 

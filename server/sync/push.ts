@@ -5,27 +5,13 @@
  * role allows, and only with a document the shared validator accepts.
  */
 import type { Knex } from 'knex';
-import { z } from 'zod';
 import { parseScenario } from '../../src/engine/core';
-import type { MutationResult } from '../../src/sync/protocol';
+import { type MutationResult, type PushMutation } from '../../src/contracts';
 import { canManage, canWrite, nextVersion, setStanding } from '../access';
 
 export type { MutationResult };
 
-export const mutationSchema = z
-  .object({
-    mutationId: z.string().uuid('must be a UUID'),
-    scenarioId: z.string().uuid('must be a UUID'),
-    setId: z.string().uuid('must be a UUID'),
-    baseRevision: z.number().int().min(0, 'must be 0 or more'),
-    document: z.unknown().optional(),
-    deleted: z.boolean().optional(),
-  })
-  .refine((m) => m.deleted === true || m.document !== undefined, {
-    message: 'a mutation carries a document or deleted: true',
-    path: ['document'],
-  });
-export type Mutation = z.infer<typeof mutationSchema>;
+type Mutation = PushMutation;
 
 class Outcome extends Error {
   constructor(readonly result: MutationResult) {

@@ -1,37 +1,8 @@
 /** Desks, members, invites and sets on the sync service: their shapes and typed calls. */
+import type { Role } from '../contracts';
 import { apiFetch } from './client';
 
-export type Role = 'lead' | 'trader' | 'analyst';
-export interface Member {
-  id: string;
-  name: string;
-  email: string;
-  role: Role;
-  joinedAt: string;
-}
-export interface Invite {
-  id: string;
-  email: string;
-  role: Role;
-  expiresAt: string;
-}
-export interface ServiceSet {
-  id: string;
-  name: string;
-  deskId: string | null;
-  deskName: string | null;
-  role: 'owner' | Role;
-  canWrite: boolean;
-  canManage: boolean;
-  scenarios: number;
-}
-export interface Revision {
-  revision: number;
-  document: unknown;
-  deleted: boolean;
-  author: string | null;
-  createdAt: string;
-}
+export type { Invite, Member, Revision, Role, ScenarioSet } from '../contracts';
 
 const send = <T>(method: string, path: string, body?: unknown) =>
   apiFetch<T>(path, { method, body: body === undefined ? undefined : JSON.stringify(body) });

@@ -6,7 +6,7 @@
 import Dexie, { type EntityTable } from 'dexie';
 import type { Position } from '../engine/book';
 import type { ScenarioDocument } from '../engine/core';
-import type { ServerCopy } from '../sync/protocol';
+import type { PulledSet, ServerCopy } from '../contracts';
 
 export type SyncState = 'local' | 'synced' | 'pending' | 'conflict';
 
@@ -38,14 +38,8 @@ export interface OutboxEntry {
   setId?: string | null;
 }
 
-/** A scenario set on the sync service that this device has pulled. */
-export interface RemoteSet {
-  id: string;
-  name: string;
-  deskId: string | null;
-  canWrite: boolean;
-  canManage: boolean;
-}
+/** A scenario set on the sync service that this device has pulled (a live one). */
+export type RemoteSet = Omit<PulledSet, 'deleted'>;
 
 export interface MetaEntry {
   key: string;

@@ -1,60 +1,14 @@
-/** The sync service's push and pull messages (DESIGN.md), shared by the client and the server. */
+/** The sync messages (from the contracts module) and the transport the sync engine pushes through. */
+import type { MutationResult, PullAnswer, PushMutation } from '../contracts';
 
-export interface PushMutation {
-  mutationId: string;
-  scenarioId: string;
-  setId: string;
-  baseRevision: number;
-  document?: unknown;
-  deleted?: boolean;
-}
-
-export interface ServerCopy {
-  revision: number;
-  /** null when the server's copy is deleted */
-  document: unknown;
-  setId: string;
-  deleted: boolean;
-}
-
-export interface MutationResult {
-  mutationId: string;
-  status: 'applied' | 'conflict' | 'denied' | 'invalid';
-  revision?: number;
-  /** on a conflict (and a denial where the caller may read): the server's copy */
-  current?: ServerCopy;
-  error?: string;
-}
-
-export interface PulledChange {
-  scenarioId: string;
-  setId: string;
-  revision: number;
-  /** null: deleted (a tombstone) */
-  document: unknown;
-  updatedBy: string | null;
-  updatedAt: string;
-}
-
-export interface PulledSet {
-  id: string;
-  name: string;
-  deskId: string | null;
-  deleted: boolean;
-  canWrite: boolean;
-  canManage: boolean;
-}
-
-export interface PullAnswer {
-  cursor: string;
-  changes: PulledChange[];
-  sets: PulledSet[];
-  /** scenarios the caller can no longer see */
-  removed: string[];
-  removedSets: string[];
-  /** more changes wait: pull again with the new cursor */
-  more: boolean;
-}
+export type {
+  MutationResult,
+  PullAnswer,
+  PulledChange,
+  PulledSet,
+  PushMutation,
+  ServerCopy,
+} from '../contracts';
 
 export interface SyncTransport {
   push(mutations: PushMutation[]): Promise<{ results: MutationResult[] }>;

@@ -52,7 +52,7 @@ export async function benchSync(): Promise<Record<string, string>[]> {
   });
   await pg.start();
   const port = await freePort();
-  const service = spawn(process.execPath, ['--import', 'tsx', 'server/serve-api.ts'], {
+  const service = spawn(process.execPath, ['--import', 'tsx', 'server/entry/serve-api.ts'], {
     cwd: root,
     env: {
       ...process.env,

@@ -9,7 +9,7 @@ import { spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { cpus } from 'node:os';
 
-export const CLI_ENTRY = 'server/cli/main.ts';
+export const CLI_ENTRY = 'cli/main.ts';
 
 export interface CliRequest {
   name: string;

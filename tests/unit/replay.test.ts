@@ -104,7 +104,7 @@ describe('hedge replay', () => {
       seed: 3,
     };
     const run = (r: unknown) =>
-      spawnSync(process.execPath, ['--import', 'tsx', 'server/cli/main.ts', 'replay'], {
+      spawnSync(process.execPath, ['--import', 'tsx', 'cli/main.ts', 'replay'], {
         cwd: root,
         input: JSON.stringify(r),
         encoding: 'utf8',

@@ -8,7 +8,7 @@ const good = () =>
   newScenario('3b0f1c1e-7a0e-4a57-b0a8-2d0f4f1a9c11', 'Validation case', '2026-12-01');
 
 function cli(command: string, input: string) {
-  const r = spawnSync(process.execPath, ['--import', 'tsx', 'server/cli/main.ts', command], {
+  const r = spawnSync(process.execPath, ['--import', 'tsx', 'cli/main.ts', command], {
     cwd: root,
     input,
     encoding: 'utf8',

@@ -176,7 +176,7 @@ describe('reproducibility', () => {
     });
     const run = (input: string) => {
       const out = JSON.parse(
-        spawnSync(process.execPath, ['--import', 'tsx', 'server/cli/main.ts', 'simulate'], {
+        spawnSync(process.execPath, ['--import', 'tsx', 'cli/main.ts', 'simulate'], {
           cwd: root,
           input,
           encoding: 'utf8',

@@ -1,7 +1,7 @@
 /** The Desk feature's query keys and options over the service. */
 import { queryOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../api/client';
-import type { Invite, Member, Role } from '../../../api/desks';
+import type { Desk, Invite, Member } from '../../../contracts';
 
 export const deskKeys = {
   all: ['service', 'desks'] as const,
@@ -11,7 +11,7 @@ export const deskKeys = {
 
 export const desksQuery = queryOptions({
   queryKey: deskKeys.all,
-  queryFn: () => apiFetch<{ desks: { id: string; name: string; role: Role }[] }>('/desks'),
+  queryFn: () => apiFetch<{ desks: Desk[] }>('/desks'),
 });
 
 export const membersQuery = (deskId: string) =>

@@ -1,7 +1,7 @@
 /** The Library feature's query keys and options over the service. */
 import { queryOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../api/client';
-import type { Revision, ServiceSet } from '../../../api/desks';
+import type { Revision, ScenarioSet } from '../../../contracts';
 
 export const libraryKeys = {
   sets: ['service', 'sets'] as const,
@@ -10,7 +10,7 @@ export const libraryKeys = {
 
 export const setsQuery = queryOptions({
   queryKey: libraryKeys.sets,
-  queryFn: () => apiFetch<{ sets: ServiceSet[] }>('/sets'),
+  queryFn: () => apiFetch<{ sets: ScenarioSet[] }>('/sets'),
 });
 
 export const revisionsQuery = (scenarioId: string) =>

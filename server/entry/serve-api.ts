@@ -1,8 +1,8 @@
 /** The API alone (used by `npm run dev`, restarted by tsx on change): migrate, seed, listen. */
-import { createApp } from './app';
-import { loadConfig, readPort } from './config';
-import { createDb, migrate, seed } from './db';
-import { setUpMail } from './mail/setup';
+import { createApp } from '../app';
+import { loadConfig, readPort } from '../config';
+import { createDb, migrate, seed } from '../db';
+import { setUpMail } from '../mail/setup';
 
 const config = loadConfig();
 const url = process.env.DATABASE_URL;

@@ -6,14 +6,14 @@
 import type { Server } from 'node:http';
 import { fileURLToPath } from 'node:url';
 import { build } from 'vite';
-import { createApp } from './app';
-import { EmbeddedPostgres, portIsFree, SetupError } from './bootstrap/postgres';
-import { loadConfig, readPort } from './config';
-import { createDb, migrate, seed } from './db';
-import { DEMO_DESK, DEMO_USERS } from './demo';
-import { setUpMail, type MailSetup } from './mail/setup';
+import { createApp } from '../app';
+import { EmbeddedPostgres, portIsFree, SetupError } from '../bootstrap/postgres';
+import { loadConfig, readPort } from '../config';
+import { createDb, migrate, seed } from '../db';
+import { DEMO_DESK, DEMO_USERS } from '../demo';
+import { setUpMail, type MailSetup } from '../mail/setup';
 
-const root = fileURLToPath(new URL('..', import.meta.url));
+const root = fileURLToPath(new URL('../..', import.meta.url));
 
 async function main() {
   const config = loadConfig();

@@ -14,7 +14,6 @@ const COMMANDS: Record<string, (request: unknown) => unknown> = {
   simulate,
   replay,
 };
-const LATER: string[] = [];
 
 function main(argv: string[]) {
   const [command, ...rest] = argv;
@@ -26,10 +25,12 @@ function main(argv: string[]) {
   }
   const handler = COMMANDS[command];
   if (!handler) {
-    const message = LATER.includes(command)
-      ? `"${command}" is not available in this version of Saltation`
-      : `unknown command "${command}"; commands: ${Object.keys(COMMANDS).join(', ')}`;
-    fail(new CliError('unknown-command', message));
+    fail(
+      new CliError(
+        'unknown-command',
+        `unknown command "${command}"; commands: ${Object.keys(COMMANDS).join(', ')}`,
+      ),
+    );
   }
   const request = readRequest(rest);
   const response = handler(request);

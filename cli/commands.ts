@@ -1,12 +1,7 @@
 /** The CLI commands over the engine; each validates its request and times only engine work. */
 import { z } from 'zod';
-import {
-  priceOptions,
-  impliedVol,
-  smileSurface,
-  type SmileSurface,
-} from '../../src/engine/analytic';
-import { calibrate as calibrateModel, completeGuess } from '../../src/engine/fit';
+import { priceOptions, impliedVol, smileSurface, type SmileSurface } from '../src/engine/analytic';
+import { calibrate as calibrateModel, completeGuess } from '../src/engine/fit';
 import {
   parametersOf,
   discountFactor,
@@ -21,7 +16,7 @@ import {
   type Market,
   type Model,
   type OptionSpec,
-} from '../../src/engine/core';
+} from '../src/engine/core';
 import {
   bookTotal,
   ladderMoves,
@@ -31,9 +26,9 @@ import {
   ladderSchema,
   positionsSchema,
   type Position,
-} from '../../src/engine/book';
-import { replay as replayHedge, replayRequestSchema } from '../../src/engine/replay';
-import { simulate as simulatePaths, simulationSettingsSchema } from '../../src/engine/paths';
+} from '../src/engine/book';
+import { replay as replayHedge, replayRequestSchema } from '../src/engine/replay';
+import { simulate as simulatePaths, simulationSettingsSchema } from '../src/engine/paths';
 import { CliError } from './io';
 
 function parse<T>(schema: z.ZodType<T>, value: unknown): T {

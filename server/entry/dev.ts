@@ -5,10 +5,10 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { createServer } from 'vite';
-import { EmbeddedPostgres, portIsFree, SetupError } from './bootstrap/postgres';
-import { loadConfig, readPort } from './config';
+import { EmbeddedPostgres, portIsFree, SetupError } from '../bootstrap/postgres';
+import { loadConfig, readPort } from '../config';
 
-const root = fileURLToPath(new URL('..', import.meta.url));
+const root = fileURLToPath(new URL('../..', import.meta.url));
 
 async function main() {
   const config = loadConfig();
@@ -33,7 +33,7 @@ async function main() {
   }
   const api: ChildProcess = spawn(
     process.execPath,
-    ['--import', 'tsx', '--watch', 'server/serve-api.ts'],
+    ['--import', 'tsx', '--watch', 'server/entry/serve-api.ts'],
     {
       cwd: root,
       stdio: 'inherit',

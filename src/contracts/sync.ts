@@ -1,0 +1,74 @@
+/**
+ * The sync protocol: push mutations and pull changes since a cursor. A push applies each
+ * mutation at most once per mutation id, only onto the revision the client started from
+ * (`baseRevision`; 0 creates), and answers applied, conflict (with the server's copy), denied
+ * or invalid. A pull answers every change the caller may see after the cursor, with
+ * tombstones, the sets, and what the caller can no longer see.
+ */
+import { z } from 'zod';
+
+export const mutationSchema = z
+  .object({
+    mutationId: z.string().uuid('must be a UUID'),
+    scenarioId: z.string().uuid('must be a UUID'),
+    setId: z.string().uuid('must be a UUID'),
+    baseRevision: z.number().int().min(0, 'must be 0 or more'),
+    document: z.unknown().optional(),
+    deleted: z.boolean().optional(),
+  })
+  .refine((m) => m.deleted === true || m.document !== undefined, {
+    message: 'a mutation carries a document or deleted: true',
+    path: ['document'],
+  });
+export type PushMutation = z.infer<typeof mutationSchema>;
+
+export const pushBody = z.object({ mutations: z.array(mutationSchema).min(1).max(200) });
+export const pullQuery = z.object({ since: z.string().max(4000).optional() });
+
+export interface ServerCopy {
+  revision: number;
+  /** null when the server's copy is deleted */
+  document: unknown;
+  setId: string;
+  deleted: boolean;
+}
+
+export interface MutationResult {
+  mutationId: string;
+  status: 'applied' | 'conflict' | 'denied' | 'invalid';
+  revision?: number;
+  /** on a conflict (and a denial where the caller may read): the server's copy */
+  current?: ServerCopy;
+  error?: string;
+}
+
+export interface PulledChange {
+  scenarioId: string;
+  setId: string;
+  revision: number;
+  /** null: deleted (a tombstone) */
+  document: unknown;
+  updatedBy: string | null;
+  updatedAt: string;
+}
+
+/** A scenario set as a pull carries it. */
+export interface PulledSet {
+  id: string;
+  name: string;
+  deskId: string | null;
+  deleted: boolean;
+  canWrite: boolean;
+  canManage: boolean;
+}
+
+export interface PullAnswer {
+  cursor: string;
+  changes: PulledChange[];
+  sets: PulledSet[];
+  /** scenarios the caller can no longer see */
+  removed: string[];
+  removedSets: string[];
+  /** more changes wait: pull again with the new cursor */
+  more: boolean;
+}
