@@ -4,6 +4,20 @@
  * (`baseRevision`; 0 creates), and answers applied, conflict (with the server's copy), denied
  * or invalid. A pull answers every change the caller may see after the cursor, with
  * tombstones, the sets, and what the caller can no longer see.
+ *
+ * The promises the service and the sync engine keep (each one is tested):
+ *  1. no acknowledged write is lost (the local save writes scenario and outbox row in one
+ *     Dexie transaction; the service commits before it answers);
+ *  2. a conflict is shown, never silently overwritten (a write is conditional on its base
+ *     revision);
+ *  3. each change takes effect exactly once, though delivery is at least once (a retried
+ *     mutation id gets its first result again);
+ *  4. pull never skips a change behind the cursor, and a user reads their own writes;
+ *  5. when activity stops, every client equals what the service lets it see;
+ *  6. offline edits survive a tab crash, a reload and a dead service;
+ *  7. no one reads or writes where their role does not allow, and a role change takes effect
+ *     on the next request;
+ *  8. bad input gets a 4xx with a reason, never a 500, a hang or a crash.
  */
 import { z } from 'zod';
 

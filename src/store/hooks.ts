@@ -3,7 +3,7 @@ import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query
 import type { ScenarioDocument } from '../engine/core';
 import { nudgeSync } from '../sync/sync-loop';
 import { appDb } from './db';
-import { deleteScenario, getScenario, listScenarios, saveScenario } from './scenarios';
+import { getScenario, listScenarios, saveScenario } from './scenarios';
 
 export const localScenariosQuery = queryOptions({
   queryKey: ['local', 'scenarios'],
@@ -25,17 +25,6 @@ export function useSaveScenario() {
     onSuccess: (stored) => {
       void qc.invalidateQueries({ queryKey: ['local', 'scenarios'] });
       qc.setQueryData(['local', 'scenario', stored.id], stored);
-      nudgeSync();
-    },
-  });
-}
-
-export function useDeleteScenario() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (id: string) => deleteScenario(appDb(), id),
-    onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: ['local'] });
       nudgeSync();
     },
   });

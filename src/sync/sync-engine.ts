@@ -256,8 +256,3 @@ async function applyPull(db: SaltationDb, userId: string, a: PullAnswer, report:
     await db.meta.put({ key: cursorKey(userId), value: a.cursor });
   });
 }
-
-/** Forgets what this device pulled for a user (the next sync pulls everything again). */
-export async function resetCursor(db: SaltationDb, userId: string): Promise<void> {
-  await db.meta.delete(cursorKey(userId));
-}

@@ -1,5 +1,5 @@
 /**
- * The authorization matrix of DESIGN.md's roles: every route × caller (no desk, analyst,
+ * The authorization matrix of the roles (src/contracts/roles.ts): every route × caller (no desk, analyst,
  * trader, lead) × the caller's own desk or another desk. Unseen things answer 404 (as if
  * they did not exist), writes the role does not allow 403 ("denied" inside a push).
  */
@@ -271,7 +271,7 @@ describe('authorization matrix', () => {
     }
   });
 
-  it('a role change takes effect on the next request (RELIABILITY.md promise 7)', async () => {
+  it('a role change takes effect on the next request (promise 7 of src/contracts/sync.ts)', async () => {
     const u = await api.user('demoted');
     await join(own.lead, deskA, u, 'trader');
     const edit = async () =>

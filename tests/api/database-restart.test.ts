@@ -1,5 +1,5 @@
 /**
- * The service while its database restarts (RELIABILITY.md: an idle pool client receiving
+ * The service while its database restarts (an idle pool client receiving
  * 57P01 must not crash the process; answer 503 quickly while the database is down; recover on
  * its own). A cluster of its own, so the shared test database keeps running.
  */

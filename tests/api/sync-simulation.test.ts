@@ -1,5 +1,5 @@
 /**
- * Randomized sync simulation (RELIABILITY.md promises 1, 3, 5): three clients of one desk, each
+ * Randomized sync simulation (promises 1, 3, 5 of src/contracts/sync.ts): three clients of one desk, each
  * with its own IndexedDB (fake-indexeddb) and the real client sync engine, edit shared
  * scenarios while going offline and online at random; the service is restarted mid-run. At
  * the end every edit is in the server's revision history (conflicts are resolved by keeping

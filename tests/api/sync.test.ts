@@ -14,7 +14,7 @@ async function personalSet(user: TestUser) {
 const push = (user: TestUser, mutations: object[]) =>
   api.as(user).post('/api/sync/push', { mutations });
 
-describe('sync (DESIGN.md push and pull contract, RELIABILITY.md promises 2–4)', () => {
+describe('sync (the push and pull contract and promises 2–4 of src/contracts/sync.ts)', () => {
   it('creates, updates, refuses a stale base with the server document, and lists the revisions', async () => {
     const u = await api.user('sync-basic');
     const setId = await personalSet(u);

@@ -12,7 +12,7 @@ const doc = newScenario(
   '2026-12-02',
 );
 
-describe('scenario files (the saltation/scenario@1 format of DESIGN.md)', () => {
+describe('scenario files (the saltation/scenario@1 format of src/engine/core/schema.ts)', () => {
   it('round-trips one scenario and a list, keeping unknown fields', () => {
     const one = parseScenarioFile(scenarioFileText([{ ...doc, deskTag: 'kept' } as typeof doc]));
     expect(one).toMatchObject({

@@ -88,9 +88,3 @@ export function blackScholesGreeks(p: BlackInputs & { spot: number }): BlackGree
   const vega = df * F * normPdf(d1) * sqrtT;
   return { price, delta, gamma, vega };
 }
-
-/** Forward (undiscounted) Black delta of a call, used for smile quoting: Φ(d1). */
-export function forwardCallDelta(logMoneyness: number, sigma: number, expiry: number): number {
-  const s = sigma * Math.sqrt(expiry);
-  return normCdf(-logMoneyness / s + 0.5 * s);
-}

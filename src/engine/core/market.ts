@@ -31,11 +31,6 @@ export function discountFactor(market: Market, t: number): number {
   return Math.exp(-riskFreeRate(market, t) * t);
 }
 
-/** Dividend factor e^{−q(t)·t}. */
-export function dividendFactor(market: Market, t: number): number {
-  return Math.exp(-dividendRate(market, t) * t);
-}
-
 /** Forward F(t) = S·e^{(r(t) − q(t))·t}. */
 export function forwardPrice(market: Market, t: number): number {
   return market.spot * Math.exp((riskFreeRate(market, t) - dividendRate(market, t)) * t);
