@@ -1,9 +1,27 @@
-import { useState } from 'react';
+import {
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingFn,
+  type SortingState,
+} from '@tanstack/react-table';
+import { useMemo, useState } from 'react';
 import type { SetRevaluation, Position } from '../../../engine/book';
 import { downloadText, toCsv } from '../../../components/csv';
 import { formatNumber } from '../../../components/format';
 
 const MAX_ROWS = 300;
+
+interface Row {
+  id: string;
+  pnl: (number | null)[];
+}
+
+// an invalid scenario's P&L (null) sorts as 0
+const byPnl: SortingFn<Row> = (a, b, id) =>
+  ((a.getValue<number | null>(id) ?? 0) as number) -
+  ((b.getValue<number | null>(id) ?? 0) as number);
 
 /** Legs × scenarios P&L against base, with totals; sortable by any column; CSV export. */
 export function PnlMatrix({
@@ -15,27 +33,39 @@ export function PnlMatrix({
   positions: Position[];
   onSelect: (id: string) => void;
 }) {
-  const [sortBy, setSortBy] = useState<number | null>(null);
-  const [descending, setDescending] = useState(false);
+  const [sorting, setSorting] = useState<SortingState>([]);
   const scenarios = result.scenarios;
-  const rows = positions.map((p, i) => ({
-    id: p.id,
-    pnl: scenarios.map((s) => (s.legPnl ? s.legPnl[i] : null)),
-  }));
-  if (sortBy !== null) {
-    rows.sort((a, b) => {
-      const x = a.pnl[sortBy] ?? 0;
-      const y = b.pnl[sortBy] ?? 0;
-      return descending ? y - x : x - y;
-    });
-  }
-  const sort = (col: number) => {
-    if (sortBy === col) setDescending(!descending);
-    else {
-      setSortBy(col);
-      setDescending(false);
-    }
-  };
+  const data = useMemo<Row[]>(
+    () =>
+      positions.map((p, i) => ({
+        id: p.id,
+        pnl: scenarios.map((s) => (s.legPnl ? s.legPnl[i] : null)),
+      })),
+    [positions, scenarios],
+  );
+  const columns = useMemo<ColumnDef<Row>[]>(
+    () =>
+      scenarios.map((s, i) => ({
+        id: String(i),
+        header: s.name,
+        accessorFn: (r) => r.pnl[i],
+        sortingFn: byPnl,
+      })),
+    [scenarios],
+  );
+  const table = useReactTable({
+    data,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    sortDescFirst: false,
+    autoResetAll: false,
+    enableSortingRemoval: false,
+  });
+  const rows = table.getRowModel().rows.map((r) => r.original);
+  const headers = table.getHeaderGroups()[0]?.headers ?? [];
   const exportCsv = () =>
     downloadText(
       'book-pnl-by-scenario.csv',
@@ -63,19 +93,26 @@ export function PnlMatrix({
               <th scope="col" className="px-2 py-1.5 text-left font-normal">
                 leg
               </th>
-              {scenarios.map((s, i) => (
-                <th
-                  key={s.id}
-                  scope="col"
-                  className="px-2 py-1.5 font-normal"
-                  aria-sort={sortBy === i ? (descending ? 'descending' : 'ascending') : 'none'}
-                >
-                  <button type="button" onClick={() => sort(i)} className="hover:text-ink">
-                    {s.name}
-                    {sortBy === i ? (descending ? ' ↓' : ' ↑') : ''}
-                  </button>
-                </th>
-              ))}
+              {headers.map((h, i) => {
+                const dir = h.column.getIsSorted();
+                return (
+                  <th
+                    key={scenarios[i].id}
+                    scope="col"
+                    className="px-2 py-1.5 font-normal"
+                    aria-sort={dir === 'desc' ? 'descending' : dir === 'asc' ? 'ascending' : 'none'}
+                  >
+                    <button
+                      type="button"
+                      onClick={h.column.getToggleSortingHandler()}
+                      className="hover:text-ink"
+                    >
+                      {scenarios[i].name}
+                      {dir === 'desc' ? ' ↓' : dir === 'asc' ? ' ↑' : ''}
+                    </button>
+                  </th>
+                );
+              })}
             </tr>
           </thead>
           <tbody>

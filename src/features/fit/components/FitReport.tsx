@@ -1,4 +1,12 @@
-import { useState } from 'react';
+import {
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from '@tanstack/react-table';
+import { useMemo, useState } from 'react';
 import type { CalibrationResult, JumpsVerdict } from '../../../engine/fit';
 import { formatTenor } from '../../../components/format';
 
@@ -37,18 +45,58 @@ export function ParameterTable({ result }: { result: CalibrationResult }) {
   );
 }
 
+interface ResidualRow {
+  expiry: number;
+  strike: number;
+  market: number;
+  model: number | null;
+  /** model − quote in vol points */
+  err: number | null;
+}
+
+const RESIDUAL_COLUMNS: ColumnDef<ResidualRow>[] = [
+  { id: 'expiry', accessorKey: 'expiry', filterFn: 'equals' },
+  { id: 'strike', accessorKey: 'strike' },
+  // an unpriced quote counts as a 99-point error: it sorts first among the largest errors
+  { id: 'absErr', accessorFn: (r) => Math.abs(r.err ?? 99) },
+];
+
+const LARGEST_ERROR_FIRST: SortingState = [{ id: 'absErr', desc: true }];
+const BY_EXPIRY_AND_STRIKE: SortingState = [
+  { id: 'expiry', desc: false },
+  { id: 'strike', desc: false },
+];
+
+/** The residuals, one expiry or all, in expiry and strike order or largest error first. */
 export function ResidualTable({ result }: { result: CalibrationResult }) {
   const [expiry, setExpiry] = useState<number | 'all'>('all');
   const [byError, setByError] = useState(false);
   const expiries = [...new Set(result.residuals.map((r) => r.expiry))].sort((a, b) => a - b);
-  const rows = result.residuals
-    .filter((r) => expiry === 'all' || r.expiry === expiry)
-    .map((r) => ({ ...r, err: r.model === null ? null : 100 * (r.model - r.market) }))
-    .sort((a, b) =>
-      byError
-        ? Math.abs(b.err ?? 99) - Math.abs(a.err ?? 99)
-        : a.expiry - b.expiry || a.strike - b.strike,
-    );
+  const data = useMemo<ResidualRow[]>(
+    () =>
+      result.residuals.map((r) => ({
+        ...r,
+        err: r.model === null ? null : 100 * (r.model - r.market),
+      })),
+    [result.residuals],
+  );
+  // the table's state must keep its identity between renders (its row models are memoised on it)
+  const sorting = byError ? LARGEST_ERROR_FIRST : BY_EXPIRY_AND_STRIKE;
+  const columnFilters = useMemo(
+    () => (expiry === 'all' ? [] : [{ id: 'expiry', value: expiry }]),
+    [expiry],
+  );
+  const table = useReactTable({
+    data,
+    columns: RESIDUAL_COLUMNS,
+    state: { sorting, columnFilters },
+    autoResetAll: false,
+    getCoreRowModel: getCoreRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    enableMultiSort: true,
+  });
+  const rows = table.getRowModel().rows.map((r) => r.original);
   return (
     <div className="space-y-2">
       <div className="flex items-center gap-3 text-sm">

@@ -1,25 +1,16 @@
-import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useMemo, useRef, useState, type FormEvent } from 'react';
-import { deskApi } from '../../../api/desks';
+import { useQuery } from '@tanstack/react-query';
+import { useRef, useState, type FormEvent } from 'react';
 import { meQuery } from '../../../api/session';
 import { Notice } from '../../../components/Notice';
+import { newScenario } from '../../../engine/core';
+import { localScenariosQuery, remoteSetsQuery } from '../../../store/hooks';
+import { scenarioFileName, scenarioFileText } from '../../../store/scenario-files';
+import { useLibraryActions } from '../hooks/use-library-actions';
+import { useScenarioList, type ScenarioSort as Sort } from '../hooks/use-scenario-list';
 import { ScenarioGroup, type RowActions } from './ScenarioGroup';
 import { SetsPanel } from './SetsPanel';
-import { newScenario } from '../../../engine/core';
-import { appDb } from '../../../store/db';
-import { localScenariosQuery, remoteSetsQuery, useSaveScenario } from '../../../store/hooks';
-import {
-  parseScenarioFile,
-  scenarioFileName,
-  scenarioFileText,
-} from '../../../store/scenario-files';
-import { deleteScenario, putInSet, saveCopy, saveScenario } from '../../../store/scenarios';
-import { keepBoth, keepMine, takeTheirs } from '../../../sync/conflicts';
-import { nudgeSync, syncNow } from '../../../sync/sync-loop';
 
 const today = () => new Date().toISOString().slice(0, 10);
-type Sort = 'edited' | 'name' | 'state';
-const STATE_ORDER = { conflict: 0, pending: 1, local: 2, synced: 3 } as const;
 
 function download(name: string, text: string) {
   const url = URL.createObjectURL(new Blob([text], { type: 'application/json' }));
@@ -34,111 +25,34 @@ export function LibraryPage() {
   const scenarios = useQuery(localScenariosQuery);
   const remoteSets = useQuery(remoteSetsQuery);
   const me = useQuery(meQuery);
-  const qc = useQueryClient();
-  const save = useSaveScenario();
   const [name, setName] = useState('');
   const [filter, setFilter] = useState('');
   const [sort, setSort] = useState<Sort>('edited');
-  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const fileInput = useRef<HTMLInputElement>(null);
   const signedIn = Boolean(me.data);
-
-  const groups = useMemo(() => {
-    const needle = filter.trim().toLowerCase();
-    const list = (scenarios.data ?? [])
-      .filter(
-        (s) =>
-          !needle ||
-          `${s.name} ${s.document.notes ?? ''} ${s.document.model.kind}`
-            .toLowerCase()
-            .includes(needle),
-      )
-      .sort((a, b) =>
-        sort === 'name'
-          ? a.name.localeCompare(b.name)
-          : sort === 'state'
-            ? STATE_ORDER[a.syncState] - STATE_ORDER[b.syncState] || b.updatedAt - a.updatedAt
-            : b.updatedAt - a.updatedAt,
-      );
-    const sets = [...(remoteSets.data ?? [])].sort((a, b) => a.name.localeCompare(b.name));
-    return {
-      device: list.filter((s) => s.setId === null || !sets.some((t) => t.id === s.setId)),
-      sets: sets.map((set) => ({ set, scenarios: list.filter((s) => s.setId === set.id) })),
-    };
-  }, [scenarios.data, remoteSets.data, filter, sort]);
-  const writableSets = (remoteSets.data ?? []).filter((s) => s.canWrite);
-
-  const run = async (what: () => Promise<unknown>, ok?: string) => {
-    try {
-      await what();
-      if (ok) setMessage({ ok: true, text: ok });
-      await qc.invalidateQueries({ queryKey: ['local'] });
-      nudgeSync();
-    } catch (err) {
-      setMessage({ ok: false, text: (err as Error).message });
-    }
-  };
-  const personalSet = async () => {
-    const own = (remoteSets.data ?? []).find((s) => s.deskId === null && s.canWrite);
-    if (own) return own.id;
-    if (!signedIn) return null;
-    const created = await deskApi.createSet('My scenarios');
-    await syncNow();
-    return created.set.id;
-  };
+  const groups = useScenarioList(scenarios.data, remoteSets.data, filter, sort);
+  const library = useLibraryActions({
+    remoteSets: remoteSets.data ?? [],
+    scenarios: scenarios.data ?? [],
+    signedIn,
+  });
+  const { message, setMessage, writableSets } = library;
   const actions: RowActions = {
-    remove: (s) => void run(() => deleteScenario(appDb(), s.id)),
-    putInSet: (s, setId) =>
-      void run(
-        () => putInSet(appDb(), s.id, setId),
-        `"${s.name}" will be shared when this device syncs.`,
-      ),
-    fork: (s) =>
-      void run(async () => {
-        const target = await personalSet().catch(() => null);
-        await saveCopy(appDb(), s.document, target, `${s.name} (fork)`);
-      }, `Forked "${s.name}" into your own set.`),
-    resolve: (s, how) =>
-      void run(async () => {
-        const db = appDb();
-        if (how === 'mine') await keepMine(db, s.id);
-        else if (how === 'theirs') await takeTheirs(db, s.id);
-        else
-          await keepBoth(
-            db,
-            s.id,
-            writableSets.some((w) => w.id === s.setId),
-          );
-      }),
+    remove: library.remove,
+    putInSet: library.putInSet,
+    fork: library.fork,
+    resolve: library.resolve,
     exportFile: (s) => download(scenarioFileName(s.name), scenarioFileText([s.document])),
-    restore: (s, doc) =>
-      void run(
-        () => saveScenario(appDb(), { ...doc, id: s.id }),
-        `Restored as a new revision of "${s.name}".`,
-      ),
+    restore: library.restore,
   };
 
   const create = async (e: FormEvent) => {
     e.preventDefault();
     const trimmed = name.trim();
     if (!trimmed) return setMessage({ ok: false, text: 'Give the scenario a name.' });
-    await run(async () => {
-      await save.mutateAsync(newScenario(crypto.randomUUID(), trimmed, today()));
-      setName('');
-    });
+    if (await library.create(newScenario(crypto.randomUUID(), trimmed, today()))) setName('');
   };
-  const importFile = async (file: File) => {
-    const parsed = parseScenarioFile(await file.text());
-    if (!parsed.ok)
-      return setMessage({ ok: false, text: `${file.name} was not imported: ${parsed.error}` });
-    const ids = new Set((scenarios.data ?? []).map((s) => s.id));
-    await run(async () => {
-      // an imported scenario that is already here comes in as a copy, never over it
-      for (const d of parsed.documents)
-        if (ids.has(d.id)) await saveCopy(appDb(), d, null, `${d.name} (imported)`);
-        else await saveScenario(appDb(), d, null);
-    }, `Imported ${parsed.documents.length} scenario(s) from ${file.name}.`);
-  };
+  const importFile = library.importFile;
 
   return (
     <section aria-labelledby="library-title" className="space-y-6">
@@ -158,7 +72,7 @@ export function LibraryPage() {
           </label>
           <button
             type="submit"
-            disabled={save.isPending}
+            disabled={library.creating}
             className="rounded-md bg-teal px-4 py-1.5 font-semibold text-paper disabled:opacity-60"
           >
             Create

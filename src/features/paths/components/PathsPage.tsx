@@ -1,5 +1,8 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useRef, useState } from 'react';
+import { Controller, useForm, type Resolver } from 'react-hook-form';
+import { firstFormError } from '../../../components/form-errors';
 import { ToolPage } from '../../../components/ToolPage';
 import { SaveRunButton } from '../../../components/SaveRunButton';
 import { ScenarioSelect } from '../../../components/ScenarioSelect';
@@ -7,29 +10,36 @@ import { SeedField, SettingField } from '../../../components/SettingField';
 import { ProgressBar } from '../../../components/ProgressBar';
 import { formatNumber, formatTenor } from '../../../components/format';
 import { PathsCharts } from './PathsCharts';
-import { simulationSettingsSchema } from '../../../engine/paths';
-import { type OptionSpec, ENGINE_VERSION } from '../../../engine/core';
+import { ENGINE_VERSION } from '../../../engine/core';
 import { appDb } from '../../../store/db';
 import { useSaveScenario } from '../../../store/hooks';
 import { useScenarioSource } from '../../../store/use-scenario-source';
 import { cacheSize, clearCache } from '../../../store/result-cache';
 import { usePathsRun } from '../hooks/use-paths-run';
+import {
+  DEFAULT_PATHS_FORM,
+  pathsFormSchema,
+  type PathsForm,
+  type PathsSettings,
+} from '../paths-form';
 
 export function PathsPage() {
   const { scenarios, source, stressed, setSourceId } = useScenarioSource();
   const cache = useQuery({ queryKey: ['local', 'cache-size'], queryFn: () => cacheSize(appDb()) });
   const qc = useQueryClient();
   const save = useSaveScenario();
-  const [form, setForm] = useState({
-    paths: '20000',
-    stepsPerDay: '1',
-    horizonDays: '30',
-    seed: String(20261201),
-    antithetic: true,
-    scheme: 'qe' as 'qe' | 'euler',
-  });
-  const [strikes, setStrikes] = useState('0.9, 1, 1.1');
-  const [formError, setFormError] = useState<string | null>(null);
+  // the strikes are fractions of the chosen scenario's spot, read when the form is checked
+  const spot = useRef(0);
+  spot.current = stressed?.market.spot ?? 0;
+  const resolver: Resolver<PathsForm, unknown, PathsSettings> = (values, context, options) =>
+    zodResolver(pathsFormSchema(spot.current))(values, context, options);
+  const { control, register, handleSubmit, getValues, formState, clearErrors } = useForm<
+    PathsForm,
+    unknown,
+    PathsSettings
+  >({ resolver, defaultValues: DEFAULT_PATHS_FORM });
+  const [stressError, setStressError] = useState<string | null>(null);
+  const [ranWith, setRanWith] = useState<PathsForm | null>(null);
   const [saved, setSaved] = useState(false);
   const { start, cancel, progress, lastProgress, run, error } = usePathsRun();
   if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
@@ -38,49 +48,32 @@ export function PathsPage() {
       <p className="text-muted">Open Sketch once so that this device has a scenario to simulate.</p>
     );
 
-  const settingsFromForm = () => {
-    const horizon = Number(form.horizonDays) / 365;
-    const options: OptionSpec[] = strikes
-      .split(/[,\s]+/)
-      .filter(Boolean)
-      .flatMap((m) => {
-        const K = Number(m) * stressed.market.spot;
-        return [{ type: Number(m) < 1 ? 'put' : 'call', strike: K, expiry: horizon } as OptionSpec];
-      });
-    const raw = {
-      horizon,
-      stepsPerYear: Number(form.stepsPerDay) * 365,
-      paths: Number(form.paths),
-      seed: Number(form.seed),
-      antithetic: form.antithetic,
-      scheme: form.scheme,
-      options,
-    };
-    const r = simulationSettingsSchema.safeParse(raw);
-    if (!r.success) {
-      const i = r.error.issues[0];
-      setFormError(`${i.path.join('.') || 'settings'}: ${i.message}`);
-      return null;
-    }
-    setFormError(null);
-    return { ...raw, antithetic: form.antithetic };
-  };
-  const go = () => {
+  const invalid = firstFormError(formState.errors);
+  const formError =
+    stressError ?? (invalid ? `${invalid.path || 'settings'}: ${invalid.message}` : null);
+  const complete = (s: PathsSettings) => ({
+    ...s,
+    antithetic: s.antithetic ?? true,
+    scheme: s.scheme ?? 'qe',
+    options: s.options ?? [],
+  });
+  const go = handleSubmit((settings) => {
     if (stressed.issues.length > 0)
-      return setFormError(
+      return setStressError(
         `the scenario's stress is out of range: ${stressed.issues[0].path} ${stressed.issues[0].message}`,
       );
-    const s = settingsFromForm();
+    setStressError(null);
     setSaved(false);
-    if (s)
-      void start(stressed.market, stressed.model, s).then(() =>
-        qc.invalidateQueries({ queryKey: ['local', 'cache-size'] }),
-      );
-  };
+    setRanWith(getValues());
+    void start(stressed.market, stressed.model, complete(settings)).then(() =>
+      qc.invalidateQueries({ queryKey: ['local', 'cache-size'] }),
+    );
+  });
   const saveRun = async () => {
-    if (!run) return;
-    const s = settingsFromForm();
-    if (!s) return;
+    if (!run || !ranWith) return;
+    const checked = pathsFormSchema(stressed.market.spot).safeParse(ranWith);
+    if (!checked.success) return;
+    const s = complete(checked.data);
     const entry = {
       kind: 'paths',
       savedAt: new Date().toISOString(),
@@ -97,10 +90,19 @@ export function PathsPage() {
     setSaved(true);
   };
   const field = (key: 'paths' | 'stepsPerDay' | 'horizonDays', label: string) => (
-    <SettingField
-      label={label}
-      value={form[key]}
-      onChange={(v) => setForm({ ...form, [key]: v })}
+    <Controller
+      control={control}
+      name={key}
+      render={({ field: f }) => (
+        <SettingField
+          label={label}
+          value={f.value}
+          onChange={(v) => {
+            clearErrors();
+            f.onChange(v);
+          }}
+        />
+      )}
     />
   );
 
@@ -119,22 +121,20 @@ export function PathsPage() {
           {field('paths', 'Paths')}
           {field('stepsPerDay', 'Steps per day')}
           {field('horizonDays', 'Horizon (days)')}
-          <SeedField value={form.seed} onChange={(seed) => setForm({ ...form, seed })} />
+          <Controller
+            control={control}
+            name="seed"
+            render={({ field: f }) => <SeedField value={f.value} onChange={f.onChange} />}
+          />
           <label className="flex items-center gap-2 text-sm">
-            <input
-              type="checkbox"
-              checked={form.antithetic}
-              onChange={(e) => setForm({ ...form, antithetic: e.target.checked })}
-            />{' '}
-            antithetic pairs
+            <input type="checkbox" {...register('antithetic')} /> antithetic pairs
           </label>
           <label className="grid grid-cols-[1fr_8rem] items-center gap-2 text-sm">
             <span>Variance scheme</span>
             <select
               aria-label="Variance scheme"
-              value={form.scheme}
-              onChange={(e) => setForm({ ...form, scheme: e.target.value as 'qe' | 'euler' })}
               className="rounded border border-rule bg-panel px-2 py-1"
+              {...register('scheme')}
             >
               <option value="qe">Andersen QE</option>
               <option value="euler">Euler (full truncation)</option>
@@ -144,14 +144,13 @@ export function PathsPage() {
             <span>Options at the horizon, strikes as fractions of spot</span>
             <input
               aria-label="Option strikes"
-              value={strikes}
-              onChange={(e) => setStrikes(e.target.value)}
               className="rounded border border-rule bg-panel px-2 py-1"
+              {...register('strikes')}
             />
           </label>
           <button
             type="button"
-            onClick={go}
+            onClick={() => void go()}
             disabled={progress !== null}
             className="rounded bg-teal px-4 py-1.5 font-semibold text-paper disabled:opacity-50"
           >
@@ -230,8 +229,8 @@ export function PathsPage() {
                 {run.summary.estimates.map((e, i) => (
                   <tr key={i} className="border-t border-rule/60">
                     <td className="px-3 text-left">
-                      {strikes.split(/[,\s]+/).filter(Boolean)[i]}× spot,{' '}
-                      {formatTenor(Number(form.horizonDays) / 365)}
+                      {ranWith?.strikes.split(/[,\s]+/).filter(Boolean)[i]}× spot,{' '}
+                      {formatTenor(Number(ranWith?.horizonDays) / 365)}
                     </td>
                     <td className="px-3">{formatNumber(e.price, 4)}</td>
                     <td className="px-3">{formatNumber(e.stdError, 4)}</td>

@@ -1,5 +1,6 @@
 /** One hedge's settings: method, rebalances a day, cost and (for Black-Scholes) the hedge vol. */
-import type { HedgeForm } from '../form/replay-form';
+import type { UseFormRegister } from 'react-hook-form';
+import type { HedgeForm, ReplayForm } from '../form/replay-form';
 
 export const METHOD_LABELS = {
   none: 'no hedge',
@@ -11,12 +12,15 @@ const input = 'tabular rounded border border-rule bg-panel px-2 py-1 text-right'
 
 export function HedgeFields({
   label,
-  value,
-  onChange,
+  name,
+  method,
+  register,
 }: {
   label: string;
-  value: HedgeForm;
-  onChange: (h: HedgeForm) => void;
+  /** which of the form's hedges */
+  name: 'hedge' | 'compare';
+  method: HedgeForm['method'];
+  register: UseFormRegister<ReplayForm>;
 }) {
   const row = 'grid grid-cols-[1fr_11rem] items-center gap-2 text-sm';
   return (
@@ -26,9 +30,8 @@ export function HedgeFields({
         <span>Method</span>
         <select
           aria-label={`${label} method`}
-          value={value.method}
-          onChange={(e) => onChange({ ...value, method: e.target.value as HedgeForm['method'] })}
           className="rounded border border-rule bg-panel px-2 py-1"
+          {...register(`${name}.method`)}
         >
           {Object.entries(METHOD_LABELS).map(([k, v]) => (
             <option key={k} value={k}>
@@ -41,29 +44,22 @@ export function HedgeFields({
         <span>Rebalances a day</span>
         <input
           aria-label={`${label} rebalances a day`}
-          value={value.rebalancesPerDay}
-          onChange={(e) => onChange({ ...value, rebalancesPerDay: e.target.value })}
           className={input}
+          {...register(`${name}.rebalancesPerDay`)}
         />
       </label>
       <label className={row}>
         <span>Cost (bp of traded value)</span>
-        <input
-          aria-label={`${label} cost`}
-          value={value.costBps}
-          onChange={(e) => onChange({ ...value, costBps: e.target.value })}
-          className={input}
-        />
+        <input aria-label={`${label} cost`} className={input} {...register(`${name}.costBps`)} />
       </label>
-      {value.method === 'bs-delta' && (
+      {method === 'bs-delta' && (
         <label className={row}>
           <span>Hedge vol % (blank: each leg&apos;s implied vol)</span>
           <input
             aria-label={`${label} hedge vol`}
-            value={value.hedgeVol}
             placeholder="implied"
-            onChange={(e) => onChange({ ...value, hedgeVol: e.target.value })}
             className={input}
+            {...register(`${name}.hedgeVol`)}
           />
         </label>
       )}

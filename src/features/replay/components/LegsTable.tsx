@@ -1,28 +1,22 @@
 /** The position builder: one row a European leg, with add and remove and per-row messages. */
-export interface LegRow {
-  type: 'call' | 'put';
-  side: 'long' | 'short';
-  strike: string;
-  days: string;
-  quantity: string;
-}
+import { useFieldArray, type Control, type UseFormRegister } from 'react-hook-form';
+import type { ReplayForm } from '../form/replay-form';
 
 const cell = 'rounded border border-rule bg-panel px-2 py-1';
 
 export function LegsTable({
-  rows,
-  onChange,
+  control,
+  register,
   issues,
   spot,
 }: {
-  rows: LegRow[];
-  onChange: (rows: LegRow[]) => void;
+  control: Control<ReplayForm, unknown, unknown>;
+  register: UseFormRegister<ReplayForm>;
   /** a message per row index, from validation */
   issues: Record<number, string>;
   spot: number;
 }) {
-  const set = (i: number, patch: Partial<LegRow>) =>
-    onChange(rows.map((r, j) => (j === i ? { ...r, ...patch } : r)));
+  const { fields, append, remove } = useFieldArray({ control, name: 'legs' });
   return (
     <div className="space-y-2">
       <table className="w-full text-sm" data-testid="legs">
@@ -37,14 +31,13 @@ export function LegsTable({
           </tr>
         </thead>
         <tbody>
-          {rows.map((r, i) => (
-            <tr key={i} className="align-top">
+          {fields.map((row, i) => (
+            <tr key={row.id} className="align-top">
               <td>
                 <select
                   aria-label={`Leg ${i + 1} side`}
-                  value={r.side}
-                  onChange={(e) => set(i, { side: e.target.value as LegRow['side'] })}
                   className={cell}
+                  {...register(`legs.${i}.side`)}
                 >
                   <option value="long">long</option>
                   <option value="short">short</option>
@@ -53,9 +46,8 @@ export function LegsTable({
               <td>
                 <select
                   aria-label={`Leg ${i + 1} type`}
-                  value={r.type}
-                  onChange={(e) => set(i, { type: e.target.value as LegRow['type'] })}
                   className={cell}
+                  {...register(`legs.${i}.type`)}
                 >
                   <option value="put">put</option>
                   <option value="call">call</option>
@@ -65,10 +57,9 @@ export function LegsTable({
                 <td key={k}>
                   <input
                     aria-label={`Leg ${i + 1} ${k}`}
-                    value={r[k]}
                     inputMode="decimal"
-                    onChange={(e) => set(i, { [k]: e.target.value })}
                     className={`${cell} tabular w-full text-right`}
+                    {...register(`legs.${i}.${k}`)}
                   />
                 </td>
               ))}
@@ -76,7 +67,7 @@ export function LegsTable({
                 <button
                   type="button"
                   aria-label={`Remove leg ${i + 1}`}
-                  onClick={() => onChange(rows.filter((_, j) => j !== i))}
+                  onClick={() => remove(i)}
                   className="px-2 py-1 text-muted hover:text-stressed"
                 >
                   ×
@@ -92,15 +83,12 @@ export function LegsTable({
           {m}
         </p>
       ))}
-      {rows.length === 0 && <p className="text-xs text-muted">No legs: add one to replay.</p>}
+      {fields.length === 0 && <p className="text-xs text-muted">No legs: add one to replay.</p>}
       <button
         type="button"
-        disabled={rows.length >= 20}
+        disabled={fields.length >= 20}
         onClick={() =>
-          onChange([
-            ...rows,
-            { type: 'put', side: 'short', strike: String(spot), days: '7', quantity: '1' },
-          ])
+          append({ type: 'put', side: 'short', strike: String(spot), days: '7', quantity: '1' })
         }
         className="text-sm text-teal disabled:opacity-50"
       >

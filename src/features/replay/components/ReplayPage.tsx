@@ -1,4 +1,6 @@
-import { useEffect, useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect, useRef, useState } from 'react';
+import { Controller, useForm, type Resolver } from 'react-hook-form';
 import { ToolPage } from '../../../components/ToolPage';
 import { ProgressBar } from '../../../components/ProgressBar';
 import { SaveRunButton } from '../../../components/SaveRunButton';
@@ -17,53 +19,80 @@ import {
   savedReplayRuns,
   summaryOf,
   type ReplayCheck,
+  type ReplayRequest,
   type SavedReplayRun,
 } from '../../../engine/replay';
 import { ENGINE_VERSION } from '../../../engine/core';
 import { useSaveScenario } from '../../../store/hooks';
 import { useScenarioSource } from '../../../store/use-scenario-source';
 import { formFromRun, loadForm, storeForm } from '../form/form-storage';
-import { defaultReplayForm, requestsFromForm, type ReplayForm } from '../form/replay-form';
+import {
+  defaultReplayForm,
+  formIssues,
+  replayFormSchema,
+  type ReplayForm,
+} from '../form/replay-form';
 import { useReplayRun } from '../hooks/use-replay-run';
 
+type Source = ReturnType<typeof useScenarioSource>;
+
 export function ReplayPage() {
-  const { scenarios, source, stressed, setSourceId } = useScenarioSource();
+  const source = useScenarioSource();
+  if (source.scenarios.isPending) return <p className="text-muted">Opening…</p>;
+  if (!source.source || !source.stressed)
+    return (
+      <p className="text-muted">Open Sketch once so that this device has a scenario to replay.</p>
+    );
+  return <ReplayWorkspace {...source} />;
+}
+
+function ReplayWorkspace({
+  scenarios,
+  source: maybeSource,
+  stressed: maybeStressed,
+  setSourceId,
+}: Source) {
+  const source = maybeSource!;
+  const stressed = maybeStressed!;
   const save = useSaveScenario();
-  const [form, setForm] = useState<ReplayForm | null>(loadForm);
-  const [legIssues, setLegIssues] = useState<Record<number, string>>({});
-  const [formError, setFormError] = useState<string | null>(null);
+  // the requests are checked against the chosen scenario's market and model of the moment
+  const scenario = useRef(stressed);
+  scenario.current = stressed;
+  const resolver: Resolver<ReplayForm, unknown, ReplayRequest[]> = (values, context, options) =>
+    zodResolver(replayFormSchema(scenario.current.market, scenario.current.model))(
+      values,
+      context,
+      options,
+    );
+  const { control, register, handleSubmit, watch, reset, formState } = useForm<
+    ReplayForm,
+    unknown,
+    ReplayRequest[]
+  >({ resolver, defaultValues: loadForm() ?? defaultReplayForm(stressed.market.spot) });
+  const [stressError, setStressError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const [check, setCheck] = useState<{ id: string; result: ReplayCheck } | null>(null);
   const { start, cancel, progress, view, error } = useReplayRun();
   useEffect(() => {
-    if (form) storeForm(form);
-  }, [form]);
-  if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
-  if (!source || !stressed)
-    return (
-      <p className="text-muted">Open Sketch once so that this device has a scenario to replay.</p>
-    );
-  const f = form ?? defaultReplayForm(stressed.market.spot);
-  const update = (next: ReplayForm) => setForm(next);
+    const sub = watch((values) => storeForm(values as ReplayForm));
+    return () => sub.unsubscribe();
+  }, [watch]);
+  const { legIssues, error: invalid } = formIssues(formState.errors);
+  const formError = stressError ?? invalid;
+  const compareOn = watch('compareOn');
   const runs = savedReplayRuns(source.document.runs);
 
-  const go = () => {
-    if (stressed.issues.length > 0)
-      return setFormError(
-        `the scenario's stress is out of range: ${stressed.issues[0].path} ${stressed.issues[0].message}`,
-      );
-    const checked = requestsFromForm(f, stressed.market, stressed.model);
+  const go = handleSubmit((requests) => {
     setSaved(false);
     setCheck(null);
-    if (!checked.ok) {
-      setLegIssues(checked.legIssues);
-      setFormError(checked.error);
-      return;
-    }
-    setLegIssues({});
-    setFormError(null);
-    void start(checked.requests);
-  };
+    if (stressed.issues.length > 0)
+      return setStressError(
+        `the scenario's stress is out of range: ${stressed.issues[0].path} ${stressed.issues[0].message}`,
+      );
+    setStressError(null);
+    void start(requests);
+  });
+  const update = (next: ReplayForm) => reset(next);
   const saveRun = async () => {
     if (!view) return;
     const entry: SavedReplayRun = {
@@ -109,42 +138,52 @@ export function ReplayPage() {
             model&apos;s price and hedged in the underlying until the last one expires.
           </p>
           <LegsTable
-            rows={f.legs}
-            onChange={(legs) => update({ ...f, legs })}
+            control={control}
+            register={register}
             issues={legIssues}
             spot={stressed.market.spot}
           />
           <HedgeFields
             label="Hedge"
-            value={f.hedge}
-            onChange={(hedge) => update({ ...f, hedge })}
+            name="hedge"
+            method={watch('hedge.method')}
+            register={register}
           />
           <label className="flex items-center gap-2 text-sm">
-            <input
-              type="checkbox"
-              checked={f.compareOn}
-              onChange={(e) => update({ ...f, compareOn: e.target.checked })}
-            />
+            <input type="checkbox" {...register('compareOn')} />
             compare with a second hedge on the same paths
           </label>
-          {f.compareOn && (
+          {compareOn && (
             <HedgeFields
               label="Compared hedge"
-              value={f.compare}
-              onChange={(compare) => update({ ...f, compare })}
+              name="compare"
+              method={watch('compare.method')}
+              register={register}
             />
           )}
-          <SettingField
-            label="Paths"
-            value={f.paths}
-            onChange={(paths) => update({ ...f, paths })}
-            inputWidth="9rem"
+          <Controller
+            control={control}
+            name="paths"
+            render={({ field }) => (
+              <SettingField
+                label="Paths"
+                value={field.value}
+                onChange={field.onChange}
+                inputWidth="9rem"
+              />
+            )}
           />
-          <SeedField value={f.seed} onChange={(seed) => update({ ...f, seed })} inputWidth="9rem" />
+          <Controller
+            control={control}
+            name="seed"
+            render={({ field }) => (
+              <SeedField value={field.value} onChange={field.onChange} inputWidth="9rem" />
+            )}
+          />
           <div className="flex gap-3">
             <button
               type="button"
-              onClick={go}
+              onClick={() => void go()}
               disabled={progress !== null}
               className="rounded bg-teal px-4 py-1.5 font-semibold text-paper disabled:opacity-50"
             >

@@ -1,28 +1,40 @@
-/** The Replay page's form, kept as typed text, and its translation into validated requests. */
-import type { LegRow } from '../components/LegsTable';
-import {
-  type HedgeSettings,
-  type ReplayRequest,
-  replayRequestSchema,
-} from '../../../engine/replay';
+/**
+ * The Replay page's form, kept as typed text, and its zod schema: text in, validated replay
+ * requests out (one per hedge, on the same position, paths and seed).
+ */
+import { z } from 'zod';
+import type { FieldErrors } from 'react-hook-form';
+import { firstFormError } from '../../../components/form-errors';
 import type { Market, Model } from '../../../engine/core';
+import { replayRequestSchema, type HedgeSettings } from '../../../engine/replay';
 
-export interface HedgeForm {
-  method: HedgeSettings['method'];
-  rebalancesPerDay: string;
-  costBps: string;
+const legRow = z.object({
+  type: z.enum(['call', 'put']),
+  side: z.enum(['long', 'short']),
+  strike: z.string(),
+  days: z.string(),
+  quantity: z.string(),
+});
+export type LegRow = z.infer<typeof legRow>;
+
+const hedgeForm = z.object({
+  method: z.enum(['none', 'bs-delta', 'model-delta']),
+  rebalancesPerDay: z.string(),
+  costBps: z.string(),
   /** in percent; blank means each leg's implied vol at inception */
-  hedgeVol: string;
-}
+  hedgeVol: z.string(),
+});
+export type HedgeForm = z.infer<typeof hedgeForm>;
 
-export interface ReplayForm {
-  legs: LegRow[];
-  hedge: HedgeForm;
-  compareOn: boolean;
-  compare: HedgeForm;
-  paths: string;
-  seed: string;
-}
+export const replayFormFields = z.object({
+  legs: z.array(legRow),
+  hedge: hedgeForm,
+  compareOn: z.boolean(),
+  compare: hedgeForm,
+  paths: z.string(),
+  seed: z.string(),
+});
+export type ReplayForm = z.infer<typeof replayFormFields>;
 
 export const defaultReplayForm = (spot: number): ReplayForm => ({
   legs: [
@@ -48,48 +60,49 @@ function hedgeFrom(h: HedgeForm): HedgeSettings {
   return out;
 }
 
-export type FormCheck =
-  | { ok: true; requests: ReplayRequest[] }
-  | { ok: false; legIssues: Record<number, string>; error: string | null };
+/** The form as requests for the scenario's market and model, checked by the engine's schema. */
+export const replayFormSchema = (market: Market, model: Model) =>
+  replayFormFields
+    .transform((form): z.input<typeof replayRequestSchema>[] => {
+      const base = {
+        market,
+        model,
+        position: form.legs.map((l) => ({
+          type: l.type,
+          strike: num(l.strike),
+          expiry: num(l.days) / 365,
+          quantity: (l.side === 'short' ? -1 : 1) * num(l.quantity),
+        })),
+        paths: num(form.paths),
+        seed: num(form.seed),
+      };
+      const hedges = form.compareOn ? [form.hedge, form.compare] : [form.hedge];
+      return hedges.map((h) => ({ ...base, hedge: hedgeFrom(h) }));
+    })
+    .pipe(z.array(replayRequestSchema));
 
-export function requestsFromForm(form: ReplayForm, market: Market, model: Model): FormCheck {
-  const base = {
-    market,
-    model,
-    position: form.legs.map((l) => ({
-      type: l.type,
-      strike: num(l.strike),
-      expiry: num(l.days) / 365,
-      quantity: (l.side === 'short' ? -1 : 1) * num(l.quantity),
-    })),
-    paths: num(form.paths),
-    seed: num(form.seed),
-  };
-  const hedges = form.compareOn ? [form.hedge, form.compare] : [form.hedge];
-  const requests: ReplayRequest[] = [];
-  for (const [k, h] of hedges.entries()) {
-    const request = { ...base, hedge: hedgeFrom(h) };
-    const r = replayRequestSchema.safeParse(request);
-    if (!r.success) {
-      const issue = r.error.issues[0];
-      const [head, index, field] = issue.path;
-      if (head === 'position' && typeof index === 'number') {
-        const name = field === 'expiry' ? 'days' : String(field);
-        return {
-          ok: false,
-          legIssues: { [index]: `${name} ${issue.message}` },
-          error: null,
-        };
-      }
-      if (head === 'position')
-        return { ok: false, legIssues: { [-1]: issue.message }, error: null };
-      const where =
-        head === 'hedge'
-          ? `${k === 0 ? 'hedge' : 'compared hedge'} ${String(index)}`
-          : issue.path.join('.');
-      return { ok: false, legIssues: {}, error: `${where}: ${issue.message}` };
-    }
-    requests.push(request);
+export interface FormIssues {
+  /** a message per leg index (−1: the position as a whole) */
+  legIssues: Record<number, string>;
+  error: string | null;
+}
+
+/**
+ * The first refusal, said where the user typed it: "Leg 2: strike must be …" beside the legs,
+ * "hedge rebalancesPerDay: …" or "compared hedge …" for a hedge, the field path otherwise.
+ */
+export function formIssues(errors: FieldErrors): FormIssues {
+  const first = firstFormError(errors);
+  if (!first) return { legIssues: {}, error: null };
+  const [k, head, index, field] = first.path.split('.');
+  if (head === 'position' && index !== undefined && /^\d+$/.test(index)) {
+    const name = field === 'expiry' ? 'days' : field;
+    return { legIssues: { [Number(index)]: `${name} ${first.message}` }, error: null };
   }
-  return { ok: true, requests };
+  if (head === 'position') return { legIssues: { [-1]: first.message }, error: null };
+  const where =
+    head === 'hedge'
+      ? `${k === '0' ? 'hedge' : 'compared hedge'} ${index}`
+      : first.path.split('.').slice(1).join('.');
+  return { legIssues: {}, error: `${where}: ${first.message}` };
 }
