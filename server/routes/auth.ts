@@ -7,6 +7,8 @@ import { hashPassword, verifyPassword } from '../auth/passwords';
 import { requireUser } from '../auth/session';
 import { issueToken, SESSION_COOKIE, SESSION_SECONDS } from '../auth/tokens';
 import { HttpError, parseOr400 } from '../errors';
+import * as accounts from '../services/accounts';
+import { listDesks } from '../services/desks';
 
 export function setSessionCookie(res: Response, token: string, secure: boolean) {
   res.cookie(SESSION_COOKIE, token, {
@@ -41,22 +43,17 @@ export function authRouter(db: Knex, secret: string, secureCookies: boolean): Ro
 
   r.post('/auth/register', perAddress, async (req, res) => {
     const body = parseOr400(registerBody, req.body, 'body');
-    const taken = await db('users').whereRaw('lower(email) = ?', [body.email]).first();
-    if (taken)
-      throw new HttpError(409, 'email-taken', 'an account with this e-mail exists', 'body.email');
-    const [user] = await db('users')
-      .insert({
-        email: body.email,
-        name: body.name,
-        password_hash: await hashPassword(body.password),
-      })
-      .returning(['id', 'email', 'name']);
+    const user = await accounts.createUser(db, {
+      email: body.email,
+      name: body.name,
+      passwordHash: await hashPassword(body.password),
+    });
     res.status(201).json({ user });
   });
 
   r.post('/auth/signin', perAddress, perAccount, async (req, res) => {
     const body = parseOr400(signinBody, req.body, 'body');
-    const row = await db('users').whereRaw('lower(email) = ?', [body.email]).first();
+    const row = await accounts.findUserByEmail(db, body.email);
     const ok = await verifyPassword(row?.password_hash, body.password);
     if (!row || !ok) throw new HttpError(401, 'bad-credentials', 'e-mail or password is wrong');
     const token = issueToken(secret, row.id);
@@ -65,18 +62,13 @@ export function authRouter(db: Knex, secret: string, secureCookies: boolean): Ro
   });
 
   r.post('/auth/signout', requireUser(db, secret), async (req, res) => {
-    await db('users').where({ id: req.user!.id }).update({ tokens_valid_after: db.fn.now() });
+    await accounts.endSessions(db, req.user!.id);
     res.clearCookie(SESSION_COOKIE, { path: '/' });
     res.json({ ok: true });
   });
 
   r.get('/me', requireUser(db, secret), async (req, res) => {
-    const desks = await db('desk_members as m')
-      .join('desks as d', 'd.id', 'm.desk_id')
-      .where('m.user_id', req.user!.id)
-      .select('d.id', 'd.name', 'm.role')
-      .orderBy('d.name');
-    res.json({ user: req.user, desks });
+    res.json({ user: req.user, desks: await listDesks(db, req.user!.id) });
   });
   return r;
 }

@@ -11,13 +11,13 @@ import {
   resetBody,
   resetRequestBody as requestBody,
 } from '../../src/contracts';
-import { hashToken, newOneTimeToken } from '../auth/one-time-tokens';
 import { hashPassword, verifyPassword } from '../auth/passwords';
 import { issueToken } from '../auth/tokens';
 import { HttpError, parseOr400 } from '../errors';
+import * as accounts from '../services/accounts';
 import type { Mailer } from '../mail/mailer';
 
-export const RESET_MINUTES = 60;
+export { RESET_MINUTES } from '../services/accounts';
 
 export function passwordRouter(
   db: Knex,
@@ -38,8 +38,8 @@ export function passwordRouter(
 
   r.post('/auth/password', limit, auth, async (req, res) => {
     const body = parseOr400(changeBody, req.body, 'body');
-    const row = await db('users').where({ id: req.user!.id }).first('password_hash');
-    if (!(await verifyPassword(row?.password_hash, body.currentPassword)))
+    const current = await accounts.passwordHashOf(db, req.user!.id);
+    if (!(await verifyPassword(current, body.currentPassword)))
       throw new HttpError(
         403,
         'bad-credentials',
@@ -47,9 +47,7 @@ export function passwordRouter(
         'body.currentPassword',
       );
     const now = new Date();
-    await db('users')
-      .where({ id: req.user!.id })
-      .update({ password_hash: await hashPassword(body.newPassword), tokens_valid_after: now });
+    await accounts.setPassword(db, req.user!.id, await hashPassword(body.newPassword), now);
     // this browser stays signed in with a fresh session; every other one is signed out
     const token = issueToken(secret, req.user!.id, now.getTime());
     setSession(res, token);
@@ -58,16 +56,9 @@ export function passwordRouter(
 
   r.post('/auth/reset-request', limit, async (req, res) => {
     const body = parseOr400(requestBody, req.body, 'body');
-    const user = await db('users')
-      .whereRaw('lower(email) = ?', [body.email])
-      .first('id', 'email', 'name');
+    const user = await accounts.findUserByEmail(db, body.email);
     if (user) {
-      const { token, hash } = newOneTimeToken();
-      await db('password_resets').insert({
-        token_hash: hash,
-        user_id: user.id,
-        expires_at: new Date(Date.now() + RESET_MINUTES * 60_000),
-      });
+      const token = await accounts.createReset(db, user.id);
       // not awaited: a known address answers as fast as an unknown one
       void mailer
         .send({
@@ -76,7 +67,7 @@ export function passwordRouter(
           text: [
             `Someone asked to reset the password of ${user.email} on Saltation.`,
             '',
-            `Choose a new one within ${RESET_MINUTES} minutes: ${appUrl}/reset?token=${token}`,
+            `Choose a new one within ${accounts.RESET_MINUTES} minutes: ${appUrl}/reset?token=${token}`,
             '',
             'The link works once. If you did not ask for this, ignore this message.',
           ].join('\n'),
@@ -90,26 +81,7 @@ export function passwordRouter(
 
   r.post('/auth/reset', limit, async (req, res) => {
     const body = parseOr400(resetBody, req.body, 'body');
-    await db.transaction(async (trx) => {
-      const row = await trx('password_resets')
-        .where({ token_hash: hashToken(body.token) })
-        .forUpdate()
-        .first();
-      if (!row) throw new HttpError(404, 'reset-unknown', 'this reset link is not valid');
-      if (row.used_at)
-        throw new HttpError(410, 'reset-used', 'this reset link has been used already');
-      if (new Date(row.expires_at).getTime() < Date.now())
-        throw new HttpError(410, 'reset-expired', 'this reset link has expired; ask for a new one');
-      await trx('password_resets')
-        .where({ token_hash: row.token_hash })
-        .update({ used_at: trx.fn.now() });
-      await trx('users')
-        .where({ id: row.user_id })
-        .update({
-          password_hash: await hashPassword(body.newPassword),
-          tokens_valid_after: new Date(),
-        });
-    });
+    await accounts.resetPassword(db, body.token, () => hashPassword(body.newPassword));
     res.json({ ok: true });
   });
   return r;

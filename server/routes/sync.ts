@@ -6,6 +6,7 @@ import { notFound, parseOr400 } from '../errors';
 import { pullQuery, pushBody, type MutationResult } from '../../src/contracts';
 import { applyMutation } from '../sync/push';
 import { pull } from '../sync/pull';
+import { listRevisions, setOfScenario } from '../services/revisions';
 
 export function syncRouter(db: Knex, auth: RequestHandler): Router {
   const r = Router();
@@ -25,32 +26,10 @@ export function syncRouter(db: Knex, auth: RequestHandler): Router {
   r.get('/scenarios/:id/revisions', auth, async (req, res) => {
     const id = String(req.params.id);
     if (!isUuid(id)) throw notFound('no such scenario');
-    const row = await db('scenarios').where({ id }).first('set_id');
+    const setId = await setOfScenario(db, id);
     // a scenario in a set the caller cannot see answers as if it did not exist
-    if (!row || !(await setStanding(db, req.user!.id, row.set_id)))
-      throw notFound('no such scenario');
-    const revisions = await db('scenario_revisions as r')
-      .leftJoin('users as u', 'u.id', 'r.author_id')
-      .where('r.scenario_id', id)
-      .orderBy('r.revision', 'desc')
-      .select(
-        'r.revision',
-        'r.document',
-        'r.deleted',
-        'r.created_at',
-        'u.name as author',
-        'u.id as author_id',
-      );
-    res.json({
-      revisions: revisions.map((v) => ({
-        revision: v.revision,
-        document: v.document,
-        deleted: v.deleted,
-        author: v.author,
-        authorId: v.author_id,
-        createdAt: new Date(v.created_at).toISOString(),
-      })),
-    });
+    if (!setId || !(await setStanding(db, req.user!.id, setId))) throw notFound('no such scenario');
+    res.json({ revisions: await listRevisions(db, id) });
   });
   return r;
 }
