@@ -1,28 +1,18 @@
-/** The Book page's data: local sets, their scenarios, and the set's revaluation in the worker. */
-import {
-  keepPreviousData,
-  queryOptions,
-  useMutation,
-  useQuery,
-  useQueryClient,
-} from '@tanstack/react-query';
+/** The Book page's data: device-only books, their scenarios, and the revaluation in the worker. */
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { LadderSpec, BookScenario, Position } from '../../../engine/book';
 import { appDb, type LocalBook, type StoredScenario } from '../../../store/db';
-import { createBook, listBooks, updateBook } from '../../../store/books';
-import { engineWorker } from '../../../workers/engine-client';
+import { createBook, updateBook } from '../../../store/books';
+import { bookKeys, localBooksQuery, revaluationQuery } from '../api/queries';
 
-export const localBooksQuery = queryOptions({
-  queryKey: ['local', 'books'],
-  queryFn: () => listBooks(appDb()),
-  staleTime: Infinity,
-});
+export { localBooksQuery };
 
 export function useCreateBook() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: ({ name, scenarioIds }: { name: string; scenarioIds: string[] }) =>
       createBook(appDb(), name, scenarioIds),
-    onSuccess: () => void qc.invalidateQueries({ queryKey: ['local', 'books'] }),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: bookKeys.books }),
   });
 }
 
@@ -31,7 +21,7 @@ export function useUpdateBook() {
   return useMutation({
     mutationFn: ({ id, change }: { id: string; change: Parameters<typeof updateBook>[2] }) =>
       updateBook(appDb(), id, change),
-    onSuccess: () => void qc.invalidateQueries({ queryKey: ['local', 'books'] }),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: bookKeys.books }),
   });
 }
 
@@ -63,12 +53,5 @@ export function useRevaluation(
           ladder,
         }
       : null;
-  return useQuery({
-    queryKey: ['engine', 'book', request],
-    queryFn: () => engineWorker().book(request!),
-    enabled: request !== null,
-    placeholderData: keepPreviousData,
-    staleTime: Infinity,
-    gcTime: 60_000,
-  });
+  return useQuery(revaluationQuery(request));
 }

@@ -14,7 +14,8 @@ import { ENGINE_VERSION } from '../../../engine/core';
 import { appDb } from '../../../store/db';
 import { useSaveScenario } from '../../../store/hooks';
 import { useScenarioSource } from '../../../store/use-scenario-source';
-import { cacheSize, clearCache } from '../../../store/result-cache';
+import { clearCache } from '../../../store/result-cache';
+import { cacheSizeQuery, pathsKeys } from '../api/queries';
 import { usePathsRun } from '../hooks/use-paths-run';
 import {
   DEFAULT_PATHS_FORM,
@@ -25,7 +26,7 @@ import {
 
 export function PathsPage() {
   const { scenarios, source, stressed, setSourceId } = useScenarioSource();
-  const cache = useQuery({ queryKey: ['local', 'cache-size'], queryFn: () => cacheSize(appDb()) });
+  const cache = useQuery(cacheSizeQuery);
   const qc = useQueryClient();
   const save = useSaveScenario();
   // the strikes are fractions of the chosen scenario's spot, read when the form is checked
@@ -66,7 +67,7 @@ export function PathsPage() {
     setSaved(false);
     setRanWith(getValues());
     void start(stressed.market, stressed.model, complete(settings)).then(() =>
-      qc.invalidateQueries({ queryKey: ['local', 'cache-size'] }),
+      qc.invalidateQueries({ queryKey: pathsKeys.cacheSize }),
     );
   });
   const saveRun = async () => {
@@ -174,7 +175,7 @@ export function PathsPage() {
               className="text-teal"
               onClick={() =>
                 void clearCache(appDb()).then(() =>
-                  qc.invalidateQueries({ queryKey: ['local', 'cache-size'] }),
+                  qc.invalidateQueries({ queryKey: pathsKeys.cacheSize }),
                 )
               }
             >

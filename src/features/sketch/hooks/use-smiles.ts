@@ -1,13 +1,13 @@
 /** Smiles and Greeks for the current scenario, computed in the engine worker. */
-import { keepPreviousData, useQuery } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import type { ScenarioDocument, Market, Model, OptionSpec } from '../../../engine/core';
-import { engineWorker } from '../../../workers/engine-client';
 import type { SmileRequest } from '../../../workers/engine-api';
+import { greeksQuery, sensitivitiesQuery, smilesQuery } from '../api/queries';
 
 export function smileRequest(doc: ScenarioDocument, densityExpiry: number): SmileRequest {
   return {
-    market: doc.market as Market,
-    model: doc.model as Model,
+    market: doc.market,
+    model: doc.model,
     stress: doc.stress,
     expiries: doc.grid.expiries,
     moneyness: doc.grid.moneyness,
@@ -16,14 +16,7 @@ export function smileRequest(doc: ScenarioDocument, densityExpiry: number): Smil
 }
 
 export function useSmiles(request: SmileRequest | null) {
-  return useQuery({
-    queryKey: ['engine', 'smiles', request],
-    queryFn: () => engineWorker().smiles(request!),
-    enabled: request !== null,
-    placeholderData: keepPreviousData,
-    staleTime: Infinity,
-    gcTime: 60_000,
-  });
+  return useQuery(smilesQuery(request));
 }
 
 export function useGreeks(
@@ -31,14 +24,7 @@ export function useGreeks(
   model: Model | null,
   options: OptionSpec[] | null,
 ) {
-  return useQuery({
-    queryKey: ['engine', 'price', market, model, options],
-    queryFn: () => engineWorker().price({ market: market!, model: model!, options: options! }),
-    enabled: market !== null && model !== null && options !== null,
-    placeholderData: keepPreviousData,
-    staleTime: Infinity,
-    gcTime: 60_000,
-  });
+  return useQuery(greeksQuery(market, model, options));
 }
 
 export function useSensitivities(
@@ -47,18 +33,6 @@ export function useSensitivities(
   expiry: number | null,
   moneyness: number[] | null,
 ) {
-  return useQuery({
-    queryKey: ['engine', 'sensitivities', market, model, expiry, moneyness],
-    queryFn: () =>
-      engineWorker().sensitivities({
-        market: market!,
-        model: model!,
-        expiry: expiry!,
-        moneyness: moneyness!,
-      }),
-    enabled: market !== null && model !== null && expiry !== null && moneyness !== null,
-    placeholderData: keepPreviousData,
-    staleTime: Infinity,
-    gcTime: 60_000,
-  });
+  const ready = market !== null && model !== null && expiry !== null && moneyness !== null;
+  return useQuery(sensitivitiesQuery(ready ? { market, model, expiry, moneyness } : null));
 }

@@ -1,0 +1,27 @@
+/** The Book feature's query keys and options: device-only books and their revaluation. */
+import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import type { BookRequest } from '../../../workers/engine-api';
+import { appDb } from '../../../store/db';
+import { listBooks } from '../../../store/books';
+import { engineWorker } from '../../../workers/engine-client';
+
+export const bookKeys = {
+  books: ['local', 'books'] as const,
+  revaluation: (request: BookRequest | null) => ['engine', 'book', request] as const,
+};
+
+export const localBooksQuery = queryOptions({
+  queryKey: bookKeys.books,
+  queryFn: () => listBooks(appDb()),
+  staleTime: Infinity,
+});
+
+export const revaluationQuery = (request: BookRequest | null) =>
+  queryOptions({
+    queryKey: bookKeys.revaluation(request),
+    queryFn: () => engineWorker().book(request!),
+    enabled: request !== null,
+    placeholderData: keepPreviousData,
+    staleTime: Infinity,
+    gcTime: 60_000,
+  });
