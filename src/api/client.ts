@@ -11,6 +11,9 @@ export class ApiError extends Error {
 }
 
 export async function apiFetch<T>(path: string, init: RequestInit = {}): Promise<T> {
+  // offline, the browser would only log a failed request: say so without asking
+  if (typeof navigator !== 'undefined' && navigator.onLine === false)
+    throw new ApiError(0, 'unreachable', 'the sync service cannot be reached (offline)');
   let res: Response;
   try {
     res = await fetch(`/api${path}`, {

@@ -30,10 +30,14 @@ export function rememberedUser(): SessionUser | null {
   }
 }
 
-/** null: signed out. While the service cannot be reached, the remembered user. */
+/**
+ * null: signed out. While the service cannot be reached, the remembered user. A device that
+ * remembers no user has no session (signing in remembers one), so it does not ask.
+ */
 export const meQuery = queryOptions({
   queryKey: ['service', 'me'],
   queryFn: async (): Promise<(Me & { offline?: boolean }) | null> => {
+    if (!rememberedUser()) return null;
     try {
       const me = await apiFetch<Me>('/me');
       localStorage.setItem(REMEMBERED, JSON.stringify(me.user));
@@ -57,8 +61,12 @@ const post = <T>(path: string, body: unknown) =>
 export function useSignIn() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (b: { email: string; password: string }) => post<Me>('/auth/signin', b),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ['service'] }),
+    mutationFn: (b: { email: string; password: string }) =>
+      post<{ user: SessionUser; token: string }>('/auth/signin', b),
+    onSuccess: ({ user }) => {
+      localStorage.setItem(REMEMBERED, JSON.stringify(user));
+      return qc.invalidateQueries({ queryKey: ['service'] });
+    },
   });
 }
 

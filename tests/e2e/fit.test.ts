@@ -37,7 +37,7 @@ describe('Fit', () => {
     await expect
       .poll(() => page.getByTestId('quotes-summary').textContent())
       .toBe('24 quotes kept over 4 expiries, 1 rows rejected.');
-    await page.getByRole('button', { name: 'Fit bates' }).click();
+    await page.getByRole('button', { name: 'Fit Bates' }).click();
     await expect.poll(() => page.getByTestId('fit-quality').count(), { timeout: 45000 }).toBe(1);
     expect(await page.getByTestId('fit-quality').textContent()).toMatch(
       /RMSE \d+\.\d{3} vol points/,
@@ -46,7 +46,7 @@ describe('Fit', () => {
     await page.getByTestId('saved-scenario-link').click();
     await expect
       .poll(() => page.getByLabel('Scenario name').inputValue(), { timeout: 20000 })
-      .toMatch(/fitted bates$/);
+      .toMatch(/fitted Bates$/);
     expect(errors).toEqual([]);
     await context.close();
   });

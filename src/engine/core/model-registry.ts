@@ -26,8 +26,10 @@ export interface ParameterGroup {
 }
 
 export interface ModelEntry {
-  /** the kind in words */
+  /** the kind in words, as menus show it */
   label: string;
+  /** the kind's short name, for buttons and titles */
+  shortLabel: string;
   groups: readonly ParameterGroup[];
   spec: (p: ParameterValues) => ModelSpec;
   /**
@@ -49,27 +51,32 @@ const lognormal = {
 
 export const MODEL_REGISTRY = {
   'black-scholes': {
-    label: 'Black-Scholes',
+    label: 'Black-Scholes (constant volatility)',
+    shortLabel: 'Black-Scholes',
     groups: [{ role: 'diffusion', title: 'Diffusion', parameters: ['sigma'] }],
     spec: (p) => ({ diffusion: constantDiffusion(p), jumps: NO_JUMPS }),
   },
   heston: {
-    label: 'Heston',
+    label: 'Heston (stochastic variance)',
+    shortLabel: 'Heston',
     groups: [variance],
     spec: (p) => ({ diffusion: hestonDiffusion(p), jumps: NO_JUMPS }),
   },
   merton: {
-    label: 'Merton jumps',
+    label: 'Merton (lognormal jumps)',
+    shortLabel: 'Merton',
     groups: [{ role: 'diffusion', title: 'Diffusion', parameters: ['sigma'] }, lognormal],
     spec: (p) => ({ diffusion: constantDiffusion(p), jumps: lognormalJumps(p) }),
   },
   bates: {
-    label: 'Bates (Heston + Merton jumps)',
+    label: 'Bates (Heston + lognormal jumps)',
+    shortLabel: 'Bates',
     groups: [variance, lognormal],
     spec: (p) => ({ diffusion: hestonDiffusion(p), jumps: lognormalJumps(p) }),
   },
   'heston-kou': {
-    label: 'Heston + double-exponential jumps',
+    label: 'Heston-Kou (Heston + double-exponential jumps)',
+    shortLabel: 'Heston-Kou',
     groups: [
       variance,
       {
@@ -121,3 +128,4 @@ export function parametersIn(kind: ModelKind, role: ParameterGroup['role']): Par
 }
 
 export const modelLabel = (kind: ModelKind): string => modelEntry(kind).label;
+export const modelShortLabel = (kind: ModelKind): string => modelEntry(kind).shortLabel;

@@ -181,3 +181,6 @@ export function domainMessage(d: Domain): string {
 export function inDomain(x: number, d: Domain): boolean {
   return (d.loOpen ? x > d.lo : x >= d.lo) && (d.hiOpen ? x < d.hi : x <= d.hi);
 }
+
+export const isParameterKey = (key: string): key is ParameterKey =>
+  Object.hasOwn(PARAMETER_SPECS, key);

@@ -6,6 +6,7 @@
  * number finite.
  */
 import { z } from 'zod';
+import { isoDateSchema } from './dates';
 import { bounded, inDomainOf, positiveUpTo } from './fields';
 import { MODEL_KINDS, parametersOf, type ModelKind, type ParametersOf } from './model-registry';
 import { PARAMETER_SPECS } from './parameters';
@@ -79,7 +80,7 @@ export const scenarioSchema = z.looseObject({
   id: z.string().min(1, 'must not be empty').max(100),
   name: z.string().trim().min(1, 'must not be empty').max(200, 'at most 200 characters'),
   notes: z.string().max(20000).optional(),
-  valuationDate: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date YYYY-MM-DD'),
+  valuationDate: isoDateSchema,
   market: marketSchema,
   model: modelSchema,
   stress: stressSchema.optional(),

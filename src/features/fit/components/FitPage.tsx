@@ -6,6 +6,7 @@ import { ProgressBar } from '../../../components/ProgressBar';
 import { RowIssues } from '../../../components/RowIssues';
 import { ScenarioSelect } from '../../../components/ScenarioSelect';
 import { ToolPage } from '../../../components/ToolPage';
+import { modelShortLabel } from '../../../engine/core';
 import { MAX_QUOTES_FILE_BYTES, parseQuotesCsv, type ParsedQuotes } from '../../../engine/fit';
 import { localScenariosQuery, useSaveScenario } from '../../../store/hooks';
 import type { FitSettings } from '../fit-settings';
@@ -54,7 +55,7 @@ export function FitPage() {
     await save.mutateAsync({
       ...source.document,
       id,
-      name: `${source.document.name} — fitted ${fitted.model.kind}`,
+      name: `${source.document.name} — fitted ${modelShortLabel(fitted.model.kind)}`,
       model: fitted.model,
       stress: {},
       runs: [],

@@ -7,12 +7,15 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
+import { parameterLabel, parametersOf, parameterValue } from '../../../engine/core';
 import type { CalibrationResult, JumpsVerdict } from '../../../engine/fit';
 import { formatTenor } from '../../../components/format';
 
 /** Parameters, fit quality and flags of one calibration. */
 export function ParameterTable({ result }: { result: CalibrationResult }) {
-  const entries = Object.entries(result.model).filter(([k]) => k !== 'kind') as [string, number][];
+  const entries = parametersOf(result.model.kind).map(
+    (k) => [k, parameterValue(result.model, k)] as const,
+  );
   return (
     <div className="space-y-2" data-testid="fit-parameters">
       <table className="tabular text-sm">
@@ -20,7 +23,7 @@ export function ParameterTable({ result }: { result: CalibrationResult }) {
           {entries.map(([k, v]) => (
             <tr key={k} className="border-b border-rule/60">
               <th scope="row" className="py-1 pr-6 text-left font-normal">
-                {k}
+                {parameterLabel(k)}
               </th>
               <td className="py-1 text-right">{v.toPrecision(5)}</td>
               <td className="py-1 pl-3 text-xs text-stressed">

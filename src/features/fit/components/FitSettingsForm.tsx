@@ -1,7 +1,7 @@
 /** The Fit page's settings form (react-hook-form over the settings schema) and its two runs. */
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { parametersOf } from '../../../engine/core';
+import { modelLabel, modelShortLabel, parameterLabel, parametersOf } from '../../../engine/core';
 import {
   DEFAULT_FIT_SETTINGS,
   FIT_KINDS,
@@ -31,7 +31,7 @@ export function FitSettingsForm({ disabled, onFit, onVerdict }: Props) {
         <select aria-label="Model to fit" className={select} {...register('kind')}>
           {FIT_KINDS.map((k) => (
             <option key={k} value={k}>
-              {k}
+              {modelLabel(k)}
             </option>
           ))}
         </select>
@@ -41,7 +41,7 @@ export function FitSettingsForm({ disabled, onFit, onVerdict }: Props) {
         <div className="flex flex-wrap gap-x-3">
           {parametersOf(kind).map((p) => (
             <label key={p} className="flex items-center gap-1">
-              <input type="checkbox" value={p} {...register('fixed')} /> {p}
+              <input type="checkbox" value={p} {...register('fixed')} /> {parameterLabel(p)}
             </label>
           ))}
         </div>
@@ -59,7 +59,7 @@ export function FitSettingsForm({ disabled, onFit, onVerdict }: Props) {
           disabled={disabled}
           className="rounded bg-teal px-4 py-1.5 font-semibold text-paper disabled:opacity-50"
         >
-          Fit {kind}
+          Fit {modelShortLabel(kind)}
         </button>
         <button
           type="button"

@@ -1,7 +1,7 @@
 /** One group of the Library (a set, or this device only): its scenarios with their actions. */
 import { useState } from 'react';
 import { Link } from 'react-router';
-import type { ScenarioDocument } from '../../../engine/core';
+import { modelShortLabel, type ScenarioDocument } from '../../../engine/core';
 import type { RemoteSet, StoredScenario } from '../../../store/db';
 import { ConflictPanel } from './ConflictPanel';
 import { HistoryPanel } from './HistoryPanel';
@@ -104,7 +104,7 @@ function Row({
             {s.name}
           </Link>
         </td>
-        <td className="py-2">{s.document.model.kind}</td>
+        <td className="py-2">{modelShortLabel(s.document.model.kind)}</td>
         <td className="py-2">
           <SyncBadge s={s} />
         </td>

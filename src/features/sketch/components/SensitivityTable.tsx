@@ -1,4 +1,5 @@
 import type { ParameterSensitivity } from '../../../engine/analytic';
+import { isParameterKey, parameterLabel } from '../../../engine/core';
 
 interface Props {
   sensitivities: ParameterSensitivity[];
@@ -38,7 +39,7 @@ export function SensitivityTable({ sensitivities, logMoneyness }: Props) {
           {sensitivities.map((s) => (
             <tr key={s.parameter} className="border-t border-rule/60">
               <th scope="row" className="px-2 py-1 text-left font-normal">
-                {s.parameter}
+                {isParameterKey(s.parameter) ? parameterLabel(s.parameter) : s.parameter}
               </th>
               {columns.map((i) => (
                 <td key={i} className="px-2 py-1">
