@@ -33,3 +33,19 @@ export function formatSigned(v: number | null | undefined, digits = 2): string {
   const s = v.toFixed(digits);
   return v > 0 ? `+${s}` : s;
 }
+
+const pad = (n: number) => String(n).padStart(2, '0');
+
+/** A moment as an ISO date and 24-hour local time: 2026-12-02 14:05. */
+export function formatDateTime(at: number | string | Date): string {
+  const d = new Date(at);
+  if (Number.isNaN(d.getTime())) return '—';
+  return `${formatDate(d)} ${pad(d.getHours())}:${pad(d.getMinutes())}`;
+}
+
+/** A day as an ISO date in local time: 2026-12-02. */
+export function formatDate(at: number | string | Date): string {
+  const d = new Date(at);
+  if (Number.isNaN(d.getTime())) return '—';
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;
+}

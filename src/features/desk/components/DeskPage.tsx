@@ -8,6 +8,7 @@ import { meQuery } from '../../../api/session';
 import { MembersTable } from './MembersTable';
 import { Notice } from '../../../components/Notice';
 import { TextField } from '../../../components/TextField';
+import { formatDate } from '../../../components/format';
 
 export function DeskPage() {
   const me = useQuery(meQuery);
@@ -159,7 +160,7 @@ export function DeskPage() {
               {invites.data?.invites.map((i) => (
                 <li key={i.id} className="flex items-center gap-3">
                   <span>
-                    {i.email} · {i.role} · until {new Date(i.expiresAt).toLocaleDateString()}
+                    {i.email} · {i.role} · until {formatDate(i.expiresAt)}
                   </span>
                   <button
                     type="button"

@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { revisionsQuery } from '../api/queries';
 import type { ScenarioDocument } from '../../../engine/core';
+import { formatDateTime } from '../../../components/format';
 
 export function HistoryPanel({
   scenarioId,
@@ -28,7 +29,7 @@ export function HistoryPanel({
             <span className="tabular font-semibold">r{r.revision}</span>
             <span>{r.deleted ? 'deleted' : ((r.document as ScenarioDocument).name ?? '')}</span>
             <span className="text-muted">
-              {r.author ?? 'someone'} · {new Date(r.createdAt).toLocaleString()}
+              {r.author ?? 'someone'} · {formatDateTime(r.createdAt)}
             </span>
             {!r.deleted && (
               <>

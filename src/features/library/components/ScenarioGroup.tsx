@@ -6,6 +6,7 @@ import type { RemoteSet, StoredScenario } from '../../../store/db';
 import { ConflictPanel } from './ConflictPanel';
 import { HistoryPanel } from './HistoryPanel';
 import { SyncBadge } from './SyncBadge';
+import { formatDateTime } from '../../../components/format';
 
 export interface RowActions {
   remove: (s: StoredScenario) => void;
@@ -109,7 +110,7 @@ function Row({
           <SyncBadge s={s} />
         </td>
         <td className="py-2 text-sm text-muted">
-          {new Date(s.updatedAt).toLocaleString()}
+          {formatDateTime(s.updatedAt)}
           {s.updatedBy && ` · ${s.updatedBy}`}
         </td>
         <td className="space-x-3 py-2 text-right">

@@ -1,6 +1,7 @@
 /** The replay runs saved in a scenario, each with Open and Replay, and the last check's verdict. */
 import { type ReplayCheck, type SavedReplayRun, runRequests } from '../../../engine/replay';
 import { hedgeName } from './ReplayStats';
+import { formatDateTime } from '../../../components/format';
 
 export function SavedRuns({
   runs,
@@ -26,7 +27,7 @@ export function SavedRuns({
       {runs.map((run) => (
         <li key={run.id} className="rounded border border-rule bg-panel px-3 py-2 text-sm">
           <div className="flex flex-wrap items-baseline gap-x-3">
-            <span className="font-semibold">{new Date(run.savedAt).toLocaleString()}</span>
+            <span className="font-semibold">{formatDateTime(run.savedAt)}</span>
             <span>
               {run.request.position.length} leg{run.request.position.length > 1 ? 's' : ''} ·{' '}
               {runRequests(run).map(hedgeName).join(' vs ')} · {run.request.paths.toLocaleString()}{' '}
