@@ -5,8 +5,9 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { createServer } from 'vite';
-import { EmbeddedPostgres, portIsFree, SetupError } from '../bootstrap/postgres';
-import { loadConfig, readPort } from '../config';
+import { startProjectCluster } from '../bootstrap/cluster-home';
+import { portIsFree, SetupError, type EmbeddedPostgres } from '../bootstrap/postgres';
+import { loadConfig } from '../config';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -22,13 +23,7 @@ async function main() {
   let pg: EmbeddedPostgres | undefined;
   let url = config.databaseUrl;
   if (!url) {
-    pg = new EmbeddedPostgres({
-      dir: `${config.dataDir}/postgres`,
-      port: readPort(process.env.SALTATION_PG_PORT, config.port + 50000),
-      database: 'saltation',
-      log: console.log,
-    });
-    await pg.start();
+    pg = await startProjectCluster(config, console.log);
     url = pg.url;
   }
   const api: ChildProcess = spawn(

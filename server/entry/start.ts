@@ -7,8 +7,9 @@ import type { Server } from 'node:http';
 import { fileURLToPath } from 'node:url';
 import { build } from 'vite';
 import { createApp } from '../app';
-import { EmbeddedPostgres, portIsFree, SetupError } from '../bootstrap/postgres';
-import { loadConfig, readPort } from '../config';
+import { startProjectCluster } from '../bootstrap/cluster-home';
+import { portIsFree, SetupError, type EmbeddedPostgres } from '../bootstrap/postgres';
+import { loadConfig } from '../config';
 import { createDb, migrate, seed } from '../db';
 import { DEMO_DESK, DEMO_USERS } from '../demo';
 import { setUpMail, type MailSetup } from '../mail/setup';
@@ -25,16 +26,7 @@ async function main() {
   let pg: EmbeddedPostgres | undefined;
   let url = config.databaseUrl;
   if (!url) {
-    pg = new EmbeddedPostgres({
-      dir: `${config.dataDir}/postgres`,
-      port: readPort(
-        process.env.SALTATION_PG_PORT,
-        config.port + 50000 > 65535 ? 54310 : config.port + 50000,
-      ),
-      database: 'saltation',
-      log: (l) => console.log(l),
-    });
-    await pg.start();
+    pg = await startProjectCluster(config, (l) => console.log(l));
     url = pg.url;
   }
   const db = createDb(url);
