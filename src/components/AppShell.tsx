@@ -1,7 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { NavLink, Outlet } from 'react-router';
-import { seedDemoScenariosOnce } from '../store/demo-seed';
+import { seedDemoBookOnce, seedDemoScenariosOnce } from '../store/demo-seed';
 import { ServiceStatus } from './ServiceStatus';
 import { SessionBar } from './SessionBar';
 import { ThemeToggle } from './ThemeToggle';
@@ -20,9 +20,11 @@ const PAGES = [
 export function AppShell() {
   const qc = useQueryClient();
   useEffect(() => {
-    void seedDemoScenariosOnce().then((seeded) => {
-      if (seeded) void qc.invalidateQueries({ queryKey: ['local'] });
-    });
+    void (async () => {
+      const scenarios = await seedDemoScenariosOnce();
+      const book = await seedDemoBookOnce();
+      if (scenarios || book) void qc.invalidateQueries({ queryKey: ['local'] });
+    })();
   }, [qc]);
   return (
     <div className="min-h-screen">

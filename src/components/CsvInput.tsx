@@ -10,6 +10,8 @@ interface Props {
   /** called with the text of a chosen, dropped or pasted file; or with a size error */
   onText: (text: string) => void;
   onTooLarge: (message: string) => void;
+  /** an example file to load with one press (e.g. the invented demo chain) */
+  sample?: { label: string; load: () => Promise<string> };
 }
 
 /** A CSV picker with drag and drop and a paste box. */
@@ -21,8 +23,21 @@ export function CsvInput({
   label,
   onText,
   onTooLarge,
+  sample,
 }: Props) {
   const [text, setText] = useState('');
+  const [loading, setLoading] = useState(false);
+  const loadSample = async () => {
+    if (!sample) return;
+    setLoading(true);
+    try {
+      const t = await sample.load();
+      setText(t);
+      onText(t);
+    } finally {
+      setLoading(false);
+    }
+  };
   const readFile = async (file: File) => {
     if (file.size > maxBytes) {
       onTooLarge(
@@ -52,6 +67,16 @@ export function CsvInput({
             onChange={(e) => e.target.files?.[0] && void readFile(e.target.files[0])}
           />
         </label>
+        {sample && (
+          <button
+            type="button"
+            disabled={loading}
+            onClick={() => void loadSample()}
+            className="rounded border border-teal px-3 py-1 text-sm text-teal disabled:opacity-50"
+          >
+            {loading ? 'Loading…' : sample.label}
+          </button>
+        )}
         <span className="text-xs text-muted">or drop a file here, or paste below · {hint}</span>
       </div>
       <textarea

@@ -1,5 +1,6 @@
 /** Every command the engine worker answers; the page side and the worker share this contract. */
 import type { SmileSurface, OptionResult, ParameterSensitivity } from '../engine/analytic';
+import type { DemoChainRequest } from '../engine/fit';
 import type { Stress, FieldIssue, Market, Model, OptionSpec } from '../engine/core';
 import type { LadderSpec, BookScenario, SetRevaluation, Position } from '../engine/book';
 
@@ -59,6 +60,8 @@ export interface EngineApi {
   price(request: PriceRequest): PriceResponse;
   sensitivities(request: SensitivityRequest): ParameterSensitivity[];
   book(request: BookRequest): SetRevaluation;
+  /** an invented chain priced by the model, with noise and bid/ask, as CSV */
+  demoChain(request: DemoChainRequest): string;
   /** density of ln(S_T/F) at the given points */
   density(model: Model, expiry: number, points: number[]): number[];
 }

@@ -7,6 +7,7 @@ import {
   smileSurface,
 } from '../engine/analytic';
 import { applyStress, isIdentityStress, ENGINE_VERSION } from '../engine/core';
+import { demoChainCsv } from '../engine/fit';
 import type {
   EngineApi,
   PriceRequest,
@@ -60,5 +61,6 @@ export const engineHandlers: EngineApi = {
   price: computePrices,
   sensitivities: (req) => smileSensitivities(req.market, req.model, req.expiry, req.moneyness),
   book: (req) => revalueSet(req.base, req.scenarios, req.positions, req.ladder),
+  demoChain: demoChainCsv,
   density: (model, expiry, points) => logReturnDensity(model, expiry, points),
 };

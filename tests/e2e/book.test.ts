@@ -22,7 +22,14 @@ describe('Book', () => {
     await page.getByRole('link', { name: 'Book' }).click();
     await page.getByLabel('New set name').fill('Weekly crash ladder');
     await page.getByRole('button', { name: 'Create' }).click();
-    await expect.poll(() => page.getByLabel('Scenario set').inputValue()).not.toBe('');
+    // the new book is selected (the demo book was there first)
+    await expect
+      .poll(() =>
+        page
+          .getByLabel('Scenario set')
+          .evaluate((s: HTMLSelectElement) => s.selectedOptions[0]?.text),
+      )
+      .toMatch(/Weekly crash ladder/);
 
     await page
       .getByTestId('positions-file')

@@ -5,3 +5,4 @@ export * from './jumps-verdict';
 export * from './levenberg-marquardt';
 export * from './quotes-csv';
 export * from './solve-to-targets';
+export * from './demo-chain';

@@ -19,7 +19,15 @@ export interface ParsedQuotes {
   quotes: VolQuote[];
   issues: RowIssue[];
   fileError?: string;
+  /**
+   * The spot the quotes' own forwards imply under the scenario's carry (the median over the
+   * rows that give a forward), when any row does.
+   */
+  impliedSpot?: number;
 }
+
+/** How far (relative) the quotes' spot may stand from the scenario's before it is pointed out. */
+export const SPOT_MISMATCH = 0.02;
 
 const ALIASES: Record<string, string> = {
   iv: 'impliedvol',
@@ -115,6 +123,7 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
   const quotes: VolQuote[] = [];
   const issues: RowIssue[] = [];
   const seen = new Set<string>();
+  const spots: number[] = [];
   for (const { line, f } of rows) {
     const bad = (field: string, message: string) => issues.push({ line, field, message });
     const T = expiryYears(f.expiry ?? '', valuationDate);
@@ -184,12 +193,13 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
         bad('price', 'must be a number');
         continue;
       }
+      // a price is read against the row's own forward and discount when it gives them
       const r = impliedVol({
         price,
-        forward: forwardPrice(market, T),
+        forward: c.forward,
         strike: K,
         expiry: T,
-        discount: discountFactor(market, T),
+        discount: c.discount,
         isCall: type.startsWith('c'),
       });
       if (r.vol === null) {
@@ -204,6 +214,8 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
       continue;
     }
     seen.add(key);
+    if ((f.forward ?? '').trim() !== '')
+      spots.push((c.forward * market.spot) / forwardPrice(market, T));
     quotes.push(
       c.own
         ? { strike: K, expiry: T, impliedVol: vol, weight, forward: c.forward }
@@ -213,5 +225,9 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
   // spread weights are relative: scale so they average 1
   const mean = quotes.reduce((a, q) => a + (q.weight ?? 1), 0) / Math.max(1, quotes.length);
   quotes.forEach((q) => (q.weight = (q.weight ?? 1) / mean));
-  return { quotes, issues };
+  if (spots.length === 0) return { quotes, issues };
+  spots.sort((a, b) => a - b);
+  const m = spots.length >> 1;
+  const impliedSpot = spots.length % 2 ? spots[m] : 0.5 * (spots[m - 1] + spots[m]);
+  return { quotes, issues, impliedSpot };
 }

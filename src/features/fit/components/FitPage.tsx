@@ -2,15 +2,22 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link } from 'react-router';
 import { CsvInput } from '../../../components/CsvInput';
+import { formatNumber } from '../../../components/format';
 import { ProgressBar } from '../../../components/ProgressBar';
 import { RowIssues } from '../../../components/RowIssues';
 import { ScenarioSelect } from '../../../components/ScenarioSelect';
 import { ToolPage } from '../../../components/ToolPage';
-import { modelShortLabel } from '../../../engine/core';
-import { MAX_QUOTES_FILE_BYTES, parseQuotesCsv, type ParsedQuotes } from '../../../engine/fit';
+import { modelShortLabel, type Market } from '../../../engine/core';
+import {
+  MAX_QUOTES_FILE_BYTES,
+  parseQuotesCsv,
+  SPOT_MISMATCH,
+  type ParsedQuotes,
+} from '../../../engine/fit';
 import { localScenariosQuery, useSaveScenario } from '../../../store/hooks';
 import type { FitSettings } from '../fit-settings';
 import { useFitJob } from '../hooks/use-fit-job';
+import { useDemoChain } from '../hooks/use-demo-chain';
 import { FitCharts, ResidualMap } from './FitCharts';
 import { FitSettingsForm } from './FitSettingsForm';
 import { ParameterTable, ResidualTable, VerdictPanel } from './FitReport';
@@ -23,9 +30,16 @@ export function FitPage() {
   const save = useSaveScenario();
   const [sourceId, setSourceId] = useState<string | null>(null);
   const [parsed, setParsed] = useState<ParsedQuotes | null>(null);
+  const [text, setText] = useState('');
+  // the spot the quotes imply, once the user has chosen to take it
+  const [spotFromQuotes, setSpotFromQuotes] = useState<number | null>(null);
+  const [ranMarket, setRanMarket] = useState<Market | null>(null);
   const [settings, setSettings] = useState<FitSettings | null>(null);
   const [savedId, setSavedId] = useState<string | null>(null);
   const job = useFitJob();
+  const loadDemoChain = useDemoChain(
+    (scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0])?.document,
+  );
 
   const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
   if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
@@ -37,12 +51,28 @@ export function FitPage() {
     );
   const quotes = parsed?.quotes ?? [];
   const { progress, outcome, fitted, error } = job;
+  const market: Market =
+    spotFromQuotes === null
+      ? source.document.market
+      : { ...source.document.market, spot: spotFromQuotes };
+  const readQuotes = (t: string, m: Market) => {
+    setText(t);
+    setParsed(parseQuotesCsv(t, m, source.document.valuationDate));
+  };
+  const implied = parsed?.impliedSpot;
+  const mismatch =
+    implied !== undefined && Math.abs(implied / market.spot - 1) > SPOT_MISMATCH ? implied : null;
+  const takeSpot = (spot: number) => {
+    setSpotFromQuotes(spot);
+    readQuotes(text, { ...source.document.market, spot });
+  };
 
   const run = (what: 'fit' | 'verdict') => (chosen: FitSettings) => {
     setSettings(chosen);
     setSavedId(null);
+    setRanMarket(market);
     void job.start(what, {
-      market: source.document.market,
+      market,
       startFrom: source.document.model,
       quotes,
       settings: chosen,
@@ -54,6 +84,8 @@ export function FitPage() {
     const id = crypto.randomUUID();
     await save.mutateAsync({
       ...source.document,
+      // the market the fit ran on: the quotes' spot when it was taken from them
+      market: ranMarket ?? market,
       id,
       name: `${source.document.name} — fitted ${modelShortLabel(fitted.model.kind)}`,
       model: fitted.model,
@@ -79,10 +111,15 @@ export function FitPage() {
             label="Market and starting point from"
             scenarios={scenarios.data!}
             value={source.id}
-            onChange={setSourceId}
+            onChange={(id) => {
+              setSourceId(id);
+              setSpotFromQuotes(null);
+            }}
           >
             <span className="text-xs text-muted">
-              spot {source.document.market.spot}, valuation {source.document.valuationDate}
+              spot {market.spot}
+              {spotFromQuotes !== null && ' (from the quotes)'}, valuation{' '}
+              {source.document.valuationDate}
             </span>
           </ScenarioSelect>
           <FitSettingsForm
@@ -107,10 +144,12 @@ export function FitPage() {
         maxBytes={MAX_QUOTES_FILE_BYTES}
         testId="quotes-file"
         label="Quotes CSV"
-        onText={(t) =>
-          setParsed(parseQuotesCsv(t, source.document.market, source.document.valuationDate))
-        }
+        onText={(t) => readQuotes(t, market)}
         onTooLarge={(m) => setParsed({ quotes: [], issues: [], fileError: m })}
+        sample={{
+          label: 'Load the demo chain',
+          load: loadDemoChain,
+        }}
       />
       {parsed?.fileError && (
         <p role="alert" className="text-sm text-stressed">
@@ -122,6 +161,26 @@ export function FitPage() {
           {parsed.quotes.length} quotes kept over {new Set(parsed.quotes.map((q) => q.expiry)).size}{' '}
           expiries, {parsed.issues.length} rows rejected.
         </p>
+      )}
+      {mismatch !== null && (
+        <div
+          role="status"
+          className="flex flex-wrap items-center gap-3 rounded border border-stressed/40 p-2 text-sm"
+          data-testid="spot-mismatch"
+        >
+          <span>
+            The quotes&apos; forwards imply a spot of {formatNumber(mismatch, 2)},{' '}
+            {formatNumber(100 * (mismatch / market.spot - 1), 1)} % from the scenario&apos;s{' '}
+            {formatNumber(market.spot, 2)}. A fit on the wrong spot misreads the whole smile.
+          </span>
+          <button
+            type="button"
+            onClick={() => takeSpot(mismatch)}
+            className="rounded border border-teal px-3 py-1 text-teal"
+          >
+            Use spot {formatNumber(mismatch, 2)} from the quotes
+          </button>
+        </div>
       )}
       {parsed && <RowIssues issues={parsed.issues} />}
       {fitted && (
