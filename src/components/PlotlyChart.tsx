@@ -3,10 +3,13 @@ import type { PlotParams } from 'react-plotly.js';
 import { PLOT_CONFIG } from './chart-theme';
 
 // Plotly is large: it lives in its own chunk, loaded the first time a chart is shown.
+// Plotly measures legend and axis text when it draws: wait for the app's font, or the labels
+// are laid out in the fallback's widths and overlap or get cut once Source Sans 3 arrives.
 const Plot = lazy(async () => {
   const [{ default: createPlotlyComponent }, Plotly] = await Promise.all([
     import('react-plotly.js/factory'),
     import('plotly.js-dist-min'),
+    typeof document !== 'undefined' ? document.fonts?.ready : undefined,
   ]);
   return { default: createPlotlyComponent(Plotly.default ?? Plotly) };
 });

@@ -40,8 +40,31 @@ export function chartFrame(t: ChartTheme, size = 12) {
   return {
     paper_bgcolor: 'rgba(0,0,0,0)',
     plot_bgcolor: 'rgba(0,0,0,0)',
-    font: { family: 'Source Sans 3, sans-serif', color: t.ink, size },
+    font: { family: "'Source Sans 3', sans-serif", color: t.ink, size },
   };
+}
+
+/**
+ * A log axis in the product's style: labelled at decades only, as powers of ten (no digits at
+ * the minor ticks, no SI prefixes such as 1μ for a probability).
+ */
+export const LOG_AXIS = {
+  type: 'log',
+  dtick: 1,
+  exponentformat: 'power',
+  showexponent: 'all',
+} as const;
+
+/** A horizontal legend under the plot (or above it), left-aligned, in the app's small type. */
+export function legendRow(where: 'above' | 'below' = 'below', offset = 0.2) {
+  return {
+    orientation: 'h',
+    x: 0,
+    xanchor: 'left',
+    y: where === 'above' ? 1 + offset : -offset,
+    yanchor: where === 'above' ? 'bottom' : 'top',
+    font: { size: 11 },
+  } as const;
 }
 
 /** A bold title at the top left of one panel of a grid of small charts. */

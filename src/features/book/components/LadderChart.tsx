@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SetRevaluation } from '../../../engine/book';
-import { chartFrame, chartTheme } from '../../../components/chart-theme';
+import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 
@@ -83,7 +83,7 @@ export function LadderChart({
       height: 480,
       margin: { l: 70, r: 12, t: 16, b: 44 },
       barmode: 'overlay',
-      legend: { orientation: 'h', y: 1.1 },
+      legend: legendRow('above', 0.02),
       xaxis: {
         ...axis,
         anchor: 'y2',
@@ -91,7 +91,7 @@ export function LadderChart({
         ticksuffix: '%',
       },
       yaxis: { ...axis, domain: [0.36, 1], title: { text: 'book P&L' } },
-      yaxis2: { ...axis, domain: [0, 0.26], type: 'log', title: { text: 'probability' } },
+      yaxis2: { ...axis, ...LOG_AXIS, domain: [0, 0.26], title: { text: 'probability' } },
     };
     return { data, layout };
   }, [result, scenarioIndex, theme]);

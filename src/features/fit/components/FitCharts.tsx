@@ -1,7 +1,13 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { Residual } from '../../../engine/fit';
-import { chartFrame, chartTheme, panelTitle } from '../../../components/chart-theme';
+import {
+  chartFrame,
+  chartTheme,
+  legendRow,
+  LOG_AXIS,
+  panelTitle,
+} from '../../../components/chart-theme';
 import { formatTenor } from '../../../components/format';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
@@ -20,7 +26,7 @@ export function FitCharts({ residuals, compare }: { residuals: Residual[]; compa
       ...chartFrame(t, 11),
       height: 210 * rows + 50,
       margin: { l: 40, r: 10, t: 30, b: 30 },
-      legend: { orientation: 'h', y: 1.08 },
+      legend: legendRow('above', 0.06),
       annotations: [] as unknown[],
     };
     expiries.forEach((T, i) => {
@@ -61,7 +67,11 @@ export function FitCharts({ residuals, compare }: { residuals: Residual[]; compa
       }
       const axis = { gridcolor: t.grid, zerolinecolor: t.grid, tickfont: { color: t.muted } };
       layout[`xaxis${suffix}`] = axis;
-      layout[`yaxis${suffix}`] = { ...axis, ticksuffix: '%' };
+      layout[`yaxis${suffix}`] = {
+        ...axis,
+        ticksuffix: '%',
+        title: { text: i === 0 ? 'implied vol' : '' },
+      };
       (layout.annotations as unknown[]).push(panelTitle(suffix, formatTenor(T), 1.18));
     });
     return { data, layout: layout as Partial<Layout> };
@@ -107,7 +117,7 @@ export function ResidualMap({ residuals }: { residuals: Residual[] }) {
       height: 300,
       margin: { l: 50, r: 10, t: 10, b: 40 },
       xaxis: { ...axis, title: { text: 'strike' } },
-      yaxis: { ...axis, title: { text: 'days to expiry' }, type: 'log' },
+      yaxis: { ...axis, ...LOG_AXIS, title: { text: 'days to expiry' } },
     };
     return { data, layout };
   }, [residuals, theme]);

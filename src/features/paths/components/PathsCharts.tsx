@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import { FAN_PERCENTILES, type HistogramSpec, type PathsView } from '../../../engine/paths';
-import { chartFrame, chartTheme } from '../../../components/chart-theme';
+import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 
@@ -28,6 +28,7 @@ function fanTraces(times: number[], rows: number[][], color: string): Data[] {
       y: rows[lo],
       line: { width: 0 },
       hoverinfo: 'skip',
+      showlegend: false,
     } as Data);
     out.push({
       type: 'scatter',
@@ -73,7 +74,7 @@ export function PathsCharts({
       data: [
         ...fanTraces(view.times, view.spotFan, t.base),
         ...view.samples.slice(0, 12).map(
-          (p) =>
+          (p, i) =>
             ({
               type: 'scatter',
               mode: 'lines',
@@ -82,14 +83,20 @@ export function PathsCharts({
               line: { color: t.stressed, width: 0.7 },
               opacity: 0.6,
               hoverinfo: 'skip',
+              name: 'sample paths',
+              legendgroup: 'samples',
+              showlegend: i === 0,
             }) as Data,
         ),
       ],
       layout: {
         ...base(t),
         title: { text: 'Spot: percentile fan and sample paths', font: { size: 13 }, x: 0 },
+        showlegend: true,
+        legend: legendRow('below', 0.3),
+        height: 340,
         xaxis: { ...axis, title: { text: 'days' } },
-        yaxis: axis,
+        yaxis: { ...axis, title: { text: 'spot' } },
       },
     };
     const variance = {
@@ -97,8 +104,11 @@ export function PathsCharts({
       layout: {
         ...base(t),
         title: { text: 'Variance: percentile fan', font: { size: 13 }, x: 0 },
+        showlegend: true,
+        legend: legendRow('below', 0.3),
+        height: 340,
         xaxis: { ...axis, title: { text: 'days' } },
-        yaxis: axis,
+        yaxis: { ...axis, title: { text: 'variance (per year)' } },
       },
     };
     const jumps = {
@@ -113,8 +123,8 @@ export function PathsCharts({
       layout: {
         ...base(t),
         title: { text: 'Jumps per path (recorded block)', font: { size: 13 }, x: 0 },
-        xaxis: { ...axis, type: 'category' as const },
-        yaxis: { ...axis, type: 'log' as const },
+        xaxis: { ...axis, type: 'category' as const, title: { text: 'jumps in the path' } },
+        yaxis: { ...axis, ...LOG_AXIS, title: { text: 'paths' } },
       },
     };
     let terminal: { data: Data[]; layout: Partial<Layout> } | null = null;
@@ -145,14 +155,14 @@ export function PathsCharts({
         layout: {
           ...base(t),
           showlegend: true,
-          legend: { orientation: 'h' as const, y: -0.25 },
+          legend: legendRow('below', 0.3),
           title: {
             text: `ln(S_T/S_0) at the horizon (mean S_T ${meanTerminal.toFixed(2)})`,
             font: { size: 13 },
             x: 0,
           },
-          xaxis: axis,
-          yaxis: { ...axis, type: 'log' as const },
+          xaxis: { ...axis, title: { text: 'log-return ln(S_T/S_0)' } },
+          yaxis: { ...axis, ...LOG_AXIS, title: { text: 'paths per bin' } },
           bargap: 0,
         },
       };
@@ -169,8 +179,8 @@ export function PathsCharts({
       layout: {
         ...base(t),
         title: { text: 'Jump sizes, log-return in % (recorded block)', font: { size: 13 }, x: 0 },
-        xaxis: { ...axis, ticksuffix: '%' },
-        yaxis: axis,
+        xaxis: { ...axis, ticksuffix: '%', title: { text: 'log-return of the jump' } },
+        yaxis: { ...axis, title: { text: 'jumps' } },
         bargap: 0.05,
       },
     };

@@ -24,6 +24,10 @@ import {
   type PathsSettings,
 } from '../paths-form';
 
+/** "put 0.9× spot": the type the form gives a strike (a put below spot, a call from spot up). */
+const optionLabel = (m: string | undefined) =>
+  m === undefined ? '' : `${Number(m) < 1 ? 'put' : 'call'} ${m}× spot`;
+
 export function PathsPage() {
   const { scenarios, source, stressed, setSourceId } = useScenarioSource();
   const cache = useQuery(cacheSizeQuery);
@@ -230,7 +234,7 @@ export function PathsPage() {
                 {run.summary.estimates.map((e, i) => (
                   <tr key={i} className="border-t border-rule/60">
                     <td className="px-3 text-left">
-                      {ranWith?.strikes.split(/[,\s]+/).filter(Boolean)[i]}× spot,{' '}
+                      {optionLabel(ranWith?.strikes.split(/[,\s]+/).filter(Boolean)[i])},{' '}
                       {formatTenor(Number(ranWith?.horizonDays) / 365)}
                     </td>
                     <td className="px-3">{formatNumber(e.price, 4)}</td>

@@ -2,7 +2,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { ReplayRequest, ReplayResult, PnlHistogram } from '../../../engine/replay';
-import { chartFrame, chartTheme } from '../../../components/chart-theme';
+import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 
@@ -32,10 +32,10 @@ export function ReplayCharts({
     const axis = () => ({ gridcolor: t.grid, zerolinecolor: t.grid, tickfont: { color: t.muted } });
     const layout = (title: string): Partial<Layout> => ({
       ...chartFrame(t, 11),
-      margin: { l: 55, r: 10, t: 30, b: 40 },
-      height: 300,
+      margin: { l: 60, r: 10, t: 30, b: 50 },
+      height: 320,
       title: { text: title, font: { size: 13 }, x: 0 },
-      legend: { orientation: 'h', y: -0.22 },
+      legend: legendRow('below', 0.28),
       xaxis: axis(),
       yaxis: axis(),
     });
@@ -78,14 +78,19 @@ export function ReplayCharts({
         data: histogram,
         layout: {
           ...layout('P&L per path at the horizon (paths per bin, log scale)'),
-          yaxis: { ...axis(), type: 'log', dtick: 1 },
+          xaxis: { ...axis(), title: { text: 'P&L at the horizon (discounted)' } },
+          yaxis: { ...axis(), ...LOG_AXIS, title: { text: 'paths' } },
           barmode: 'overlay',
           bargap: 0,
         },
       },
       attribution: {
         data: attribution,
-        layout: { ...layout('P&L booked on steps with and without a jump'), barmode: 'group' },
+        layout: {
+          ...layout('P&L booked on steps with and without a jump'),
+          yaxis: { ...axis(), title: { text: 'P&L per path' } },
+          barmode: 'group',
+        },
       },
     };
   }, [requests, results, histograms, theme]);

@@ -1,7 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { DensityCurve } from '../../../workers/engine-api';
-import { chartFrame, chartTheme } from '../../../components/chart-theme';
+import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
 import { useTheme } from '../../../components/theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 
@@ -43,8 +43,8 @@ export function DensityChart({ density, title }: { density: DensityCurve; title:
       height: 260,
       title: { text: title, font: { size: 13 }, x: 0, xanchor: 'left' },
       xaxis: { ...axis, title: { text: 'log-return ln(S/F)' } },
-      yaxis: { ...axis, type: 'log', title: { text: 'density' } },
-      legend: { orientation: 'h', y: -0.25 },
+      yaxis: { ...axis, ...LOG_AXIS, title: { text: 'density' } },
+      legend: legendRow('below', 0.3),
     };
     return { data, layout };
   }, [density, title, theme]);
