@@ -123,6 +123,24 @@ export default tseslint.config(
     },
   },
   {
+    // components reach workers and the service through hooks (features/<f>/hooks, api/session)
+    files: ['src/features/*/components/**/*.tsx', 'src/components/**/*.tsx'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/workers/*', '**/api/client', '**/api/desks', '**/store/scenarios'],
+              allowTypeImports: true,
+              message: 'Components reach workers, the service and the store through hooks.',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['tests/**/*.ts'],
     rules: { 'max-lines': 'off' },
   },

@@ -95,3 +95,25 @@ export const requestReset = (email: string) =>
   post<{ message: string }>('/auth/reset-request', { email });
 export const resetPassword = (b: { token: string; newPassword: string }) =>
   post<{ ok: true }>('/auth/reset', b);
+
+export function useChangePassword() {
+  return useMutation({ mutationFn: changePassword });
+}
+
+export function useRequestReset() {
+  return useMutation({ mutationFn: requestReset });
+}
+
+export function useResetPassword() {
+  return useMutation({ mutationFn: resetPassword });
+}
+
+/** Joins the desk of an invite link; the service's queries are refreshed after. */
+export function useAcceptInvite() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (token: string) =>
+      post<{ desk: { name: string; role: string } }>('/invites/accept', { token }),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: ['service'] }),
+  });
+}

@@ -73,6 +73,14 @@ describe('lint keeps the layers apart', () => {
     expect(await rulesBroken(f)).toContain('import-x/no-restricted-paths');
   }, 60_000);
 
+  it('fails when a component calls a worker directly instead of through a hook', async () => {
+    const f = plant(
+      'src/features/fit/components/PlantedWorker.tsx',
+      "import { runFit } from '../../../workers/fit-client';\nexport const planted = runFit;\n",
+    );
+    expect(await rulesBroken(f)).toContain('@typescript-eslint/no-restricted-imports');
+  }, 60_000);
+
   it('passes the same files where the import goes the allowed way (replay importing core)', async () => {
     const f = plant(
       'src/engine/replay/planted-downward.ts',

@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router';
 import type { ApiError } from '../../../api/client';
-import { changePassword, meQuery, useSignOut } from '../../../api/session';
+import { meQuery, useChangePassword, useSignOut } from '../../../api/session';
 import { Notice } from '../../../components/Notice';
 import { TextField } from '../../../components/TextField';
 import { unsyncedQuery } from '../../../store/hooks';
@@ -15,6 +15,7 @@ export function AccountPage() {
   const [current, setCurrent] = useState('');
   const [next, setNext] = useState('');
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
+  const changePassword = useChangePassword();
   if (me.isPending) return <p className="text-muted">Opening…</p>;
   if (!me.data)
     return (
@@ -28,7 +29,7 @@ export function AccountPage() {
   const change = async (e: FormEvent) => {
     e.preventDefault();
     try {
-      await changePassword({ currentPassword: current, newPassword: next });
+      await changePassword.mutateAsync({ currentPassword: current, newPassword: next });
       setCurrent('');
       setNext('');
       setMessage({ ok: true, text: 'Password changed. Your other sessions are signed out.' });

@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate, useSearchParams } from 'react-router';
-import { ApiError } from '../../../api/client';
-import { requestReset, useRegister, useSignIn } from '../../../api/session';
+import type { ApiError } from '../../../api/client';
+import { useRegister, useRequestReset, useSignIn } from '../../../api/session';
 import { TextField } from '../../../components/TextField';
 
 type Mode = 'sign-in' | 'register' | 'forgot';
@@ -14,6 +14,7 @@ export function SignInPage() {
   const [name, setName] = useState('');
   const [error, setError] = useState<{ message: string; path?: string } | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
+  const requestReset = useRequestReset();
   const signIn = useSignIn();
   const register = useRegister();
   const navigate = useNavigate();
@@ -27,7 +28,7 @@ export function SignInPage() {
     setNotice(null);
     try {
       if (mode === 'forgot') {
-        const r = await requestReset(email);
+        const r = await requestReset.mutateAsync(email);
         setNotice(r.message);
         return;
       }

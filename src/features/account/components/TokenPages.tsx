@@ -1,9 +1,9 @@
 /** The pages behind e-mailed links: choosing a new password, and accepting a desk invite. */
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router';
-import { apiFetch, type ApiError } from '../../../api/client';
-import { meQuery, resetPassword } from '../../../api/session';
+import type { ApiError } from '../../../api/client';
+import { meQuery, useAcceptInvite, useResetPassword } from '../../../api/session';
 import { Notice } from '../../../components/Notice';
 import { TextField } from '../../../components/TextField';
 
@@ -11,11 +11,12 @@ export function ResetPage() {
   const [params] = useSearchParams();
   const token = params.get('token') ?? '';
   const [password, setPassword] = useState('');
+  const resetPassword = useResetPassword();
   const [result, setResult] = useState<{ ok: boolean; text: string } | null>(null);
   const submit = async (e: FormEvent) => {
     e.preventDefault();
     try {
-      await resetPassword({ token, newPassword: password });
+      await resetPassword.mutateAsync({ token, newPassword: password });
       setResult({ ok: true, text: 'Password changed; every session was signed out.' });
     } catch (err) {
       setResult({ ok: false, text: (err as ApiError).message });
@@ -57,16 +58,12 @@ export function InvitePage() {
   const [params] = useSearchParams();
   const token = params.get('token') ?? '';
   const me = useQuery(meQuery);
-  const qc = useQueryClient();
+  const acceptInvite = useAcceptInvite();
   const [result, setResult] = useState<{ ok: boolean; text: string } | null>(null);
   const accept = async () => {
     try {
-      const r = await apiFetch<{ desk: { name: string; role: string } }>('/invites/accept', {
-        method: 'POST',
-        body: JSON.stringify({ token }),
-      });
+      const r = await acceptInvite.mutateAsync(token);
       setResult({ ok: true, text: `You joined "${r.desk.name}" as ${r.desk.role}.` });
-      void qc.invalidateQueries({ queryKey: ['service'] });
     } catch (err) {
       setResult({ ok: false, text: (err as ApiError).message });
     }

@@ -1,8 +1,8 @@
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router';
-import type { ApiError } from '../../../api/client';
-import { deskApi, type Role } from '../../../api/desks';
+import type { Role } from '../../../contracts';
+import { useDeskActions } from '../hooks/use-desk-actions';
 import { desksQuery, invitesQuery, membersQuery } from '../api/queries';
 import { meQuery } from '../../../api/session';
 import { MembersTable } from './MembersTable';
@@ -16,8 +16,8 @@ export function DeskPage() {
   const desks = useQuery({ ...desksQuery, enabled: signedIn });
   const [chosen, setChosen] = useState<string | null>(null);
   const [newDesk, setNewDesk] = useState('');
-  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
-  const qc = useQueryClient();
+  const actions = useDeskActions();
+  const { message } = actions;
   const desk = desks.data?.desks.find((d) => d.id === chosen) ?? desks.data?.desks[0];
   const isLead = desk?.role === 'lead';
   const members = useQuery({ ...membersQuery(desk?.id ?? ''), enabled: Boolean(desk) });
@@ -49,30 +49,18 @@ export function DeskPage() {
       </section>
     );
 
-  const act = async (what: () => Promise<unknown>, ok: string) => {
-    try {
-      await what();
-      setMessage({ ok: true, text: ok });
-      await qc.invalidateQueries({ queryKey: ['service'] });
-    } catch (err) {
-      setMessage({ ok: false, text: (err as ApiError).message });
-    }
-  };
-  const create = (e: FormEvent) => {
+  const create = async (e: FormEvent) => {
     e.preventDefault();
-    void act(async () => {
-      const r = await deskApi.create(newDesk);
+    const r = await actions.create(newDesk);
+    if (r) {
       setChosen(r.desk.id);
       setNewDesk('');
-    }, 'Desk created; you are its lead.');
+    }
   };
-  const invite = (e: FormEvent) => {
+  const invite = async (e: FormEvent) => {
     e.preventDefault();
     if (!desk) return;
-    void act(async () => {
-      await deskApi.invite(desk.id, email, role);
-      setEmail('');
-    }, `Invite sent to ${email}.`);
+    if (await actions.invite(desk.id, email, role)) setEmail('');
   };
 
   return (
@@ -109,9 +97,7 @@ export function DeskPage() {
           members={members.data.members}
           me={me.data.user.id}
           isLead={isLead}
-          onRole={(userId, r) =>
-            void act(() => deskApi.setRole(desk.id, userId, r), 'Role changed.')
-          }
+          onRole={(userId, r) => void actions.setRole(desk.id, userId, r)}
           onRemove={(m) => {
             const self = m.id === me.data!.user.id;
             if (
@@ -122,16 +108,13 @@ export function DeskPage() {
               )
             )
               return;
-            void act(
-              () => deskApi.remove(desk.id, m.id),
-              self ? 'You left the desk.' : `${m.name} removed.`,
-            );
+            void actions.remove(desk.id, m.id, self ? 'You left the desk.' : `${m.name} removed.`);
           }}
         />
       )}
       {desk && isLead && (
         <div className="grid gap-6 md:grid-cols-2">
-          <form onSubmit={invite} className="space-y-3" aria-label="invite">
+          <form onSubmit={(e) => void invite(e)} className="space-y-3" aria-label="invite">
             <h2 className="text-lg font-semibold">Invite by e-mail</h2>
             <TextField label="E-mail" type="email" value={email} onChange={setEmail} />
             <label className="flex flex-col gap-1 text-sm">
@@ -165,9 +148,7 @@ export function DeskPage() {
                   <button
                     type="button"
                     className="text-muted hover:text-stressed"
-                    onClick={() =>
-                      void act(() => deskApi.revoke(desk.id, i.id), 'Invite withdrawn.')
-                    }
+                    onClick={() => void actions.revoke(desk.id, i.id)}
                   >
                     Withdraw
                   </button>
@@ -177,7 +158,11 @@ export function DeskPage() {
           </div>
         </div>
       )}
-      <form onSubmit={create} className="flex flex-wrap items-end gap-3" aria-label="new desk">
+      <form
+        onSubmit={(e) => void create(e)}
+        className="flex flex-wrap items-end gap-3"
+        aria-label="new desk"
+      >
         <TextField label="New desk" value={newDesk} onChange={setNewDesk} />
         <button type="submit" className="rounded-md border border-teal px-4 py-1.5 text-teal">
           Create desk
