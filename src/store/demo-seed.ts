@@ -11,7 +11,15 @@ const FLAG = 'saltation.demo-scenarios';
 const BOOK_FLAG = 'saltation.demo-book';
 export const DEMO_BOOK_NAME = 'LKX 40 demo book (invented)';
 
-export async function seedDemoScenariosOnce(): Promise<boolean> {
+let seeding: Promise<boolean> | null = null;
+
+/** The demo scenarios, once; callers at the same moment (the shell and Sketch) share one run. */
+export function seedDemoScenariosOnce(): Promise<boolean> {
+  seeding ??= seedScenarios().finally(() => (seeding = null));
+  return seeding;
+}
+
+async function seedScenarios(): Promise<boolean> {
   if (localStorage.getItem(FLAG)) return false;
   const db = appDb();
   if ((await db.scenarios.count()) === 0) {

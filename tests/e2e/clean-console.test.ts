@@ -28,7 +28,11 @@ function watch(page: Page): string[] {
     if (m.type() === 'error' || m.type() === 'warning') problems.push(`${m.type()}: ${m.text()}`);
   });
   page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
-  page.on('requestfailed', (r) => problems.push(`failed: ${r.url()} ${r.failure()?.errorText}`));
+  page.on('requestfailed', (r) => {
+    // a request the test's own next navigation cut short is the browser's doing, not the app's
+    if (r.failure()?.errorText !== 'net::ERR_ABORTED')
+      problems.push(`failed: ${r.url()} ${r.failure()?.errorText}`);
+  });
   page.on('response', (r) => {
     if (r.status() >= 400) problems.push(`${r.status()}: ${r.url()}`);
   });
@@ -69,10 +73,15 @@ describe('a clean console', () => {
     const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     const problems = watch(page);
-    // the service worker takes control from the second load
+    // the service worker precaches the app on install and controls the page from the next load
     await page.goto(env.app().url);
-    await page.waitForLoadState('networkidle');
+    await page.evaluate(async () => {
+      await navigator.serviceWorker.ready;
+    });
     await page.reload();
+    await expect
+      .poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null))
+      .toBe(true);
     await page.waitForLoadState('networkidle');
     await context.setOffline(true);
     for (const path of PAGES) {
