@@ -43,7 +43,7 @@ describe('a conflict in the browser', () => {
     await row(mine).getByRole('button', { name: 'Resolve' }).click();
     const panel = mine.getByTestId('conflict-panel');
     const diff = await panel.locator('tbody tr').allTextContents();
-    expect(diff).toEqual(['model.jumpIntensity1.20.9']);
+    expect(diff).toEqual(['Intensity λ (per year)1.20.9']);
     if (shots) await mine.screenshot({ path: `${shots}/conflict.png`, fullPage: true });
     await panel.getByRole('button', { name: 'Keep both (mine as a copy)' }).click();
     const copy = mine

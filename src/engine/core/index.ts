@@ -2,6 +2,7 @@
 export * from './canonical-json';
 export * from './dates';
 export * from './fields';
+export * from './labels';
 export * from './market';
 export * from './model-registry';
 export * from './model-spec';

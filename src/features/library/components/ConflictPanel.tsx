@@ -1,6 +1,7 @@
 /** A conflict: the fields where my edit and the server's revision differ, and three ways out. */
 import { differingFields } from '../../../sync/conflicts';
 import type { StoredScenario } from '../../../store/db';
+import { documentFieldLabel } from '../../../engine/core';
 
 const show = (v: unknown) =>
   v === undefined ? '—' : typeof v === 'string' ? v : JSON.stringify(v);
@@ -36,7 +37,9 @@ export function ConflictPanel({
           <tbody>
             {diffs.slice(0, 40).map((d) => (
               <tr key={d.path} className="border-t border-rule/60 align-top">
-                <td className="pr-3 font-mono text-xs">{d.path}</td>
+                <td className="pr-3 text-xs" title={d.path}>
+                  {documentFieldLabel(d.path)}
+                </td>
                 <td className="max-w-xs break-words pr-3">{show(d.mine)}</td>
                 <td className="max-w-xs break-words">{show(d.theirs)}</td>
               </tr>
