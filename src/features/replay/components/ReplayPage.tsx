@@ -107,7 +107,7 @@ function ReplayWorkspace({
     };
     await save.mutateAsync({
       ...source.document,
-      runs: [...(source.document.runs ?? []), entry as unknown as Record<string, unknown>],
+      runs: [...(source.document.runs ?? []), { ...entry }],
     });
     setSaved(true);
   };
