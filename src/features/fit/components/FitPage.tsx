@@ -37,11 +37,9 @@ export function FitPage() {
   const [settings, setSettings] = useState<FitSettings | null>(null);
   const [savedId, setSavedId] = useState<string | null>(null);
   const job = useFitJob();
-  const loadDemoChain = useDemoChain(
-    (scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0])?.document,
-  );
 
   const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
+  const loadDemoChain = useDemoChain(source?.document);
   if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
   if (!source)
     return (

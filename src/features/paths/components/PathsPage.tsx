@@ -1,7 +1,7 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useRef, useState } from 'react';
-import { Controller, useForm, type Resolver } from 'react-hook-form';
+import { useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
+import { useSchemaResolver } from '../../../components/use-schema-resolver';
 import { firstFormError } from '../../../components/form-errors';
 import { ToolPage } from '../../../components/ToolPage';
 import { SaveRunButton } from '../../../components/SaveRunButton';
@@ -34,10 +34,7 @@ export function PathsPage() {
   const qc = useQueryClient();
   const save = useSaveScenario();
   // the strikes are fractions of the chosen scenario's spot, read when the form is checked
-  const spot = useRef(0);
-  spot.current = stressed?.market.spot ?? 0;
-  const resolver: Resolver<PathsForm, unknown, PathsSettings> = (values, context, options) =>
-    zodResolver(pathsFormSchema(spot.current))(values, context, options);
+  const resolver = useSchemaResolver(() => pathsFormSchema(stressed?.market.spot ?? 0));
   const { control, register, handleSubmit, getValues, formState, clearErrors } = useForm<
     PathsForm,
     unknown,

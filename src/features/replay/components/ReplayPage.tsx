@@ -1,6 +1,6 @@
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useRef, useState } from 'react';
-import { Controller, useForm, type Resolver } from 'react-hook-form';
+import { useEffect, useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
+import { useSchemaResolver } from '../../../components/use-schema-resolver';
 import { ToolPage } from '../../../components/ToolPage';
 import { ProgressBar } from '../../../components/ProgressBar';
 import { SaveRunButton } from '../../../components/SaveRunButton';
@@ -56,14 +56,7 @@ function ReplayWorkspace({
   const stressed = maybeStressed!;
   const save = useSaveScenario();
   // the requests are checked against the chosen scenario's market and model of the moment
-  const scenario = useRef(stressed);
-  scenario.current = stressed;
-  const resolver: Resolver<ReplayForm, unknown, ReplayRequest[]> = (values, context, options) =>
-    zodResolver(replayFormSchema(scenario.current.market, scenario.current.model))(
-      values,
-      context,
-      options,
-    );
+  const resolver = useSchemaResolver(() => replayFormSchema(stressed.market, stressed.model));
   const { control, register, handleSubmit, watch, reset, formState } = useForm<
     ReplayForm,
     unknown,
