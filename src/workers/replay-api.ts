@@ -1,5 +1,6 @@
 /** The hedge replay worker: runs the blocks it is given and follows single paths. */
 import type {
+  BlockPnl,
   PathTrace,
   ReplayPlan,
   ReplayRequest,
@@ -10,13 +11,14 @@ import type {
 export interface ReplayBlocksDone {
   pnl: Float64Array[];
   onJumps: Float64Array[];
+  onEvents: Float64Array[];
   premium: number;
   steps: number;
 }
 
 export interface FinishedRun {
   meta: Pick<ReplayPlan, 'request' | 'steps' | 'premium'>;
-  blocks: { pnl: Float64Array; onJumps: Float64Array }[];
+  blocks: BlockPnl[];
   elapsedMs: number;
 }
 

@@ -51,6 +51,7 @@ export function runReplays(
         const count = blockCountFor(request.paths);
         const pnl = new Array<Float64Array>(count);
         const onJumps = new Array<Float64Array>(count);
+        const onEvents = new Array<Float64Array>(count);
         let meta = { request, steps: 0, premium: 0 };
         await Promise.all(
           apis.map(async (api, w) => {
@@ -61,16 +62,17 @@ export function runReplays(
               batch.forEach((b, j) => {
                 pnl[b] = out.pnl[j];
                 onJumps[b] = out.onJumps[j];
+                onEvents[b] = out.onEvents[j];
               });
             }
           }),
         );
-        const blocks = pnl.map((p, b) => ({ pnl: p, onJumps: onJumps[b] }));
+        const blocks = pnl.map((p, b) => ({ pnl: p, onJumps: onJumps[b], onEvents: onEvents[b] }));
         finished.push({ meta, blocks, elapsedMs: performance.now() - started });
       }
       // joining, sorting for VaR/ES and the histograms run in a worker, not on the page's thread
       const buffers = finished.flatMap((f) =>
-        f.blocks.flatMap((b) => [b.pnl.buffer as ArrayBuffer, b.onJumps.buffer as ArrayBuffer]),
+        f.blocks.flatMap((b) => [b.pnl, b.onJumps, b.onEvents].map((a) => a.buffer as ArrayBuffer)),
       );
       const { results, histograms } = await apis[0].finish(transfer(finished, buffers), BINS);
       return { results, histograms, workers: apis.length };

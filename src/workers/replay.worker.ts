@@ -30,6 +30,7 @@ const api: ReplayApi = {
     const done: ReplayBlocksDone = {
       pnl: [],
       onJumps: [],
+      onEvents: [],
       premium: plan.premium,
       steps: plan.steps,
     };
@@ -37,9 +38,12 @@ const api: ReplayApi = {
       const out = replayBlock(plan, b);
       done.pnl.push(out.pnl);
       done.onJumps.push(out.onJumps);
+      done.onEvents.push(out.onEvents);
       void onBlock();
     }
-    const buffers = [...done.pnl, ...done.onJumps].map((a) => a.buffer as ArrayBuffer);
+    const buffers = [...done.pnl, ...done.onJumps, ...done.onEvents].map(
+      (a) => a.buffer as ArrayBuffer,
+    );
     return transfer(done, buffers);
   },
   trace(request, path) {
@@ -48,9 +52,7 @@ const api: ReplayApi = {
   finish(runs, bins) {
     const joined = runs.map((r) => joinBlocks(r.meta.request.paths, r.blocks));
     return {
-      results: runs.map((r, i) =>
-        replayResult(r.meta, joined[i].pnl, joined[i].onJumps, r.elapsedMs),
-      ),
+      results: runs.map((r, i) => replayResult(r.meta, joined[i], r.elapsedMs)),
       histograms: sharedHistograms(
         joined.map((j) => j.pnl),
         bins,

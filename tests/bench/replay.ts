@@ -2,7 +2,13 @@
  * Benchmark: 10,000 paths, daily rebalancing over one month, a two-leg position hedged with the
  * model's delta (table included) and with Black-Scholes delta on the same paths, one core.
  */
-import { blockCountFor, combineReplay, replay, type ReplayRequest } from '../../src/engine/replay';
+import {
+  blockCountFor,
+  combineReplay,
+  replay,
+  type BlockPnl,
+  type ReplayRequest,
+} from '../../src/engine/replay';
 import { blocksInThreads } from './threads';
 import { type Model, DEFAULT_BATES } from '../../src/engine/core';
 import { fmt } from './timing';
@@ -27,7 +33,7 @@ export async function benchReplay(): Promise<Record<string, string>[]> {
   const bs = run('bs-delta');
   const md = run('model-delta');
   const inThreads = async (workers: number) => {
-    const { ms, blocks } = await blocksInThreads<{ pnl: Float64Array; onJumps: Float64Array }>(
+    const { ms, blocks } = await blocksInThreads<BlockPnl>(
       new URL('./replay-thread.mjs', import.meta.url),
       workers,
       blockCountFor(10000),

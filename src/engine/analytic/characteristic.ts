@@ -4,7 +4,8 @@
  * ln E[e^{wY}]: w = i·u for the Fourier transform (COS), w = ½ + i·u for the Lewis integral,
  * real w for moments. Complex arithmetic is inlined on (re, im) pairs: this is the hot loop.
  */
-import type { Diffusion, JumpLaw, ModelSpec } from '../core/model-spec';
+import { expectedJumps, type Diffusion, type JumpLaw, type ModelSpec } from '../core/model-spec';
+import { touches, twoPointOutcomes, type ScheduledMove } from '../core/scheduled-moves';
 
 export { modelSpec } from '../core/models';
 export type { Diffusion, JumpLaw, ModelSpec } from '../core/model-spec';
@@ -35,10 +36,55 @@ export function logCharacteristic(
     hestonLogCf(d, T, wr, wi, outRe, outIm, count);
   }
   const jl = spec.jumps;
-  if (jl.type === 'lognormal' && jl.jumpIntensity > 0)
-    addLognormalJumps(jl, T, wr, wi, outRe, outIm, count);
-  if (jl.type === 'double-exponential' && jl.jumpIntensity > 0) {
-    addDoubleExponentialJumps(jl, T, wr, wi, outRe, outIm, count);
+  // a time-varying intensity enters European prices only through Λ(T) = ∫₀ᵀ λ(s) ds
+  const lt = expectedJumps(spec, T);
+  if (jl.type === 'lognormal' && lt > 0) addLognormalJumps(jl, lt, wr, wi, outRe, outIm, count);
+  if (jl.type === 'double-exponential' && lt > 0) {
+    addDoubleExponentialJumps(jl, lt, wr, wi, outRe, outIm, count);
+  }
+  if (spec.events) {
+    for (const e of spec.events)
+      if (touches(e.time, T)) addScheduledMove(e, wr, wi, outRe, outIm, count);
+  }
+}
+
+/**
+ * A scheduled move X, independent of the rest, multiplies the characteristic function by
+ * E[e^{wX}] (common practice for a deterministic-time jump):
+ * normal, X ~ N(−s²/2, s²): ln E[e^{wX}] = ½s²(w² − w);
+ * two-point, X = x₊ w.p. p else x₋: ln(p e^{w x₊} + (1 − p) e^{w x₋}). Only e^{ln φ} is ever
+ * used, so the branch of the complex logarithm does not matter.
+ */
+function addScheduledMove(
+  e: ScheduledMove,
+  wr: Float64Array,
+  wi: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+  count: number,
+): void {
+  if (e.law === 'normal') {
+    const half = 0.5 * e.stdev * e.stdev;
+    for (let j = 0; j < count; j++) {
+      const a = wr[j];
+      const b = wi[j];
+      outRe[j] += half * (a * a - b * b - a);
+      outIm[j] += half * (2 * a * b - b);
+    }
+    return;
+  }
+  const { up, down, p } = twoPointOutcomes(e);
+  for (let j = 0; j < count; j++) {
+    const a = wr[j];
+    const b = wi[j];
+    // factor out the larger real exponent so neither term overflows
+    const top = p === 0 ? a * down : p === 1 ? a * up : Math.max(a * up, a * down);
+    const mu = p * Math.exp(a * up - top);
+    const md = (1 - p) * Math.exp(a * down - top);
+    const sr = mu * Math.cos(b * up) + md * Math.cos(b * down);
+    const si = mu * Math.sin(b * up) + md * Math.sin(b * down);
+    outRe[j] += top + 0.5 * Math.log(sr * sr + si * si);
+    outIm[j] += Math.atan2(si, sr);
   }
 }
 
@@ -159,17 +205,16 @@ function hestonLogCf(
   }
 }
 
-/** Merton (1976) jumps: λT(e^{wμ + ½δ²w²} − 1) − wλT(e^{μ + ½δ²} − 1). */
+/** Merton (1976) jumps: Λ(e^{wμ + ½δ²w²} − 1) − wΛ(e^{μ + ½δ²} − 1), Λ = λT for a constant λ. */
 function addLognormalJumps(
   jl: Extract<JumpLaw, { type: 'lognormal' }>,
-  T: number,
+  lt: number,
   wr: Float64Array,
   wi: Float64Array,
   outRe: Float64Array,
   outIm: Float64Array,
   count: number,
 ): void {
-  const lt = jl.jumpIntensity * T;
   const mu = jl.jumpMean;
   const hv = 0.5 * jl.jumpStdev * jl.jumpStdev;
   const kbar = Math.expm1(mu + hv);
@@ -190,18 +235,17 @@ function addLognormalJumps(
 
 /**
  * Kou (2002) double-exponential jumps with up probability p, mean sizes m1 = 1/η1, m2 = 1/η2:
- * λT(p/(1 − w m1) + (1 − p)/(1 + w m2) − 1) − wλTζ, ζ = p/(1 − m1) + (1 − p)/(1 + m2) − 1.
+ * Λ(p/(1 − w m1) + (1 − p)/(1 + w m2) − 1) − wΛζ, ζ = p/(1 − m1) + (1 − p)/(1 + m2) − 1.
  */
 function addDoubleExponentialJumps(
   jl: Extract<JumpLaw, { type: 'double-exponential' }>,
-  T: number,
+  lt: number,
   wr: Float64Array,
   wi: Float64Array,
   outRe: Float64Array,
   outIm: Float64Array,
   count: number,
 ): void {
-  const lt = jl.jumpIntensity * T;
   const { upProbability: p, upMean: m1, downMean: m2 } = jl;
   const zeta = p / (1 - m1) + (1 - p) / (1 + m2) - 1;
   for (let j = 0; j < count; j++) {

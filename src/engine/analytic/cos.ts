@@ -9,6 +9,8 @@
  */
 import { logCharacteristic, type ModelSpec } from './characteristic';
 import { cumulants, diffusionVariance } from './cumulants';
+import { expectedJumps } from '../core/model-spec';
+import { touches, twoPointOutcomes } from '../core/scheduled-moves';
 
 export interface CosSettings {
   /** truncation width in units of √(c2 + √c4) (Fang & Oosterlee section 5.1) */
@@ -58,9 +60,25 @@ const DIRECT_CALL_LIMIT = 5;
 /** Extra half-width so the range also holds one jump's tail (c2/c4 alone understate it). */
 function jumpExtent(spec: ModelSpec, T: number): number {
   const j = spec.jumps;
-  if (j.type === 'none' || !(j.jumpIntensity * T > 0)) return 0;
+  if (j.type === 'none' || !(expectedJumps(spec, T) > 0)) return 0;
   if (j.type === 'lognormal') return Math.abs(j.jumpMean) + 8.5 * j.jumpStdev;
   return 37 * Math.max(j.upMean, j.downMean);
+}
+
+/**
+ * Extra half-width for the two-point scheduled moves before T: the sum of their outcomes'
+ * largest distances from 0 bounds their joint support, which a bimodal law's c2 and c4 can
+ * understate. Normal moves are Gaussian: the cumulants already hold them.
+ */
+function eventExtent(spec: ModelSpec, T: number): number {
+  let extent = 0;
+  if (!spec.events) return 0;
+  for (const e of spec.events) {
+    if (e.law !== 'two-point' || !touches(e.time, T)) continue;
+    const { up, down } = twoPointOutcomes(e);
+    extent += Math.max(Math.abs(up), Math.abs(down));
+  }
+  return extent;
 }
 
 export function prepareCos(
@@ -69,7 +87,8 @@ export function prepareCos(
   settings: CosSettings = DEFAULT_COS_SETTINGS,
 ): CosExpiry {
   const { c1, c2, c4 } = cumulants(spec, T);
-  const half = settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T);
+  const half =
+    settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T) + eventExtent(spec, T);
   const a = c1 - half;
   const b = c1 + half;
   const step = Math.PI / (b - a);

@@ -4,6 +4,8 @@
  * truncation range, so a few digits suffice; h is scaled to the distribution's width.
  */
 import { logCharacteristicAt, type ModelSpec } from './characteristic';
+import { expectedJumps } from '../core/model-spec';
+import { moveVariance, touches } from '../core/scheduled-moves';
 
 export interface Cumulants {
   c1: number;
@@ -20,19 +22,26 @@ export function diffusionVariance(spec: ModelSpec, T: number): number {
   return d.theta * T + (d.v0 - d.theta) * decay;
 }
 
-/** A rough variance of Y that needs no moments: expected integrated variance plus jump variance. */
+/** Variance of the scheduled moves that touch an expiry T. */
+export function scheduledVariance(spec: ModelSpec, T: number): number {
+  let v = 0;
+  if (spec.events) for (const e of spec.events) if (touches(e.time, T)) v += moveVariance(e);
+  return v;
+}
+
+/**
+ * A rough variance of Y that needs no moments: expected integrated variance plus jump variance
+ * plus the scheduled moves' variance.
+ */
 export function roughVariance(spec: ModelSpec, T: number): number {
   let v = diffusionVariance(spec, T);
   const j = spec.jumps;
-  if (j.type === 'lognormal')
-    v += j.jumpIntensity * T * (j.jumpMean * j.jumpMean + j.jumpStdev * j.jumpStdev);
+  const lt = expectedJumps(spec, T);
+  if (j.type === 'lognormal') v += lt * (j.jumpMean * j.jumpMean + j.jumpStdev * j.jumpStdev);
   if (j.type === 'double-exponential') {
-    v +=
-      j.jumpIntensity *
-      T *
-      (2 * j.upProbability * j.upMean ** 2 + 2 * (1 - j.upProbability) * j.downMean ** 2);
+    v += lt * (2 * j.upProbability * j.upMean ** 2 + 2 * (1 - j.upProbability) * j.downMean ** 2);
   }
-  return Math.max(v, 1e-16);
+  return Math.max(v + scheduledVariance(spec, T), 1e-16);
 }
 
 /**

@@ -11,6 +11,7 @@ import { normalisedImpliedSigma } from './implied-vol';
 import { discountFactor, forwardPrice } from '../core/market';
 import { normCdf } from './normal';
 import { isBlackScholes, parameterValue } from '../core/models';
+import { specFrom } from '../core/model-spec';
 import type { Market, Model, OptionSpec } from '../core/types';
 
 export interface OptionResult {
@@ -93,8 +94,9 @@ export function priceOptions(
     const strikes = indices.map((i) => options[i].strike);
     const values = valueAt(spec, model, market, expiry, strikes, settings);
     const h = Math.min(1e-3 * expiry, 1 / 365);
-    const later = valueAt(spec, model, market, expiry + h, strikes, settings);
-    const earlier = valueAt(spec, model, market, expiry - h, strikes, settings);
+    // calendar theta: dated risk stays on its dates, so it moves with the valuation
+    const later = valueAt(specFrom(spec, -h), model, market, expiry + h, strikes, settings);
+    const earlier = valueAt(specFrom(spec, h), model, market, expiry - h, strikes, settings);
     indices.forEach((optionIndex, j) => {
       const o = options[optionIndex];
       const isCall = o.type === 'call';

@@ -9,6 +9,7 @@ export * from './model-spec';
 export * from './models';
 export * from './parameters';
 export * from './scenario-defaults';
+export * from './scheduled-moves';
 export * from './schema';
 export * from './stress';
 export * from './types';

@@ -5,6 +5,13 @@
  * one from its parameters.
  */
 
+import {
+  integratedIntensity,
+  shiftSchedule,
+  type IntensitySchedule,
+  type ScheduledMove,
+} from './scheduled-moves';
+
 export type Diffusion =
   | { type: 'constant'; variance: number }
   | { type: 'heston'; v0: number; kappa: number; theta: number; volOfVol: number; rho: number };
@@ -23,6 +30,10 @@ export type JumpLaw =
 export interface ModelSpec {
   diffusion: Diffusion;
   jumps: JumpLaw;
+  /** scheduled moves of ln S (`scheduled-moves.ts`); none when absent */
+  events?: readonly ScheduledMove[];
+  /** piecewise-constant jump intensity; `jumps.jumpIntensity` after its last point */
+  intensitySchedule?: IntensitySchedule;
 }
 
 /** Parameter values by name, as a registry entry's builders read them. */
@@ -62,3 +73,36 @@ export const doubleExponentialJumps = (p: ParameterValues): JumpLaw => ({
   upMean: num(p, 'upMean'),
   downMean: num(p, 'downMean'),
 });
+
+/** Λ(T): the expected number of jumps up to T (0 without jumps), honouring the schedule. */
+export function expectedJumps(spec: ModelSpec, T: number): number {
+  const j = spec.jumps;
+  if (j.type === 'none') return 0;
+  return integratedIntensity(j.jumpIntensity, spec.intensitySchedule, T);
+}
+
+/** Expected jumps over (t0, t1]. */
+export const expectedJumpsBetween = (spec: ModelSpec, t0: number, t1: number): number =>
+  expectedJumps(spec, t1) - expectedJumps(spec, t0);
+
+/** Whether the spec has dated parts (scheduled moves or an intensity schedule). */
+export const hasDatedRisk = (spec: ModelSpec): boolean =>
+  (spec.events?.length ?? 0) > 0 || (spec.intensitySchedule?.length ?? 0) > 0;
+
+/**
+ * The model as seen `dt` years after its valuation (dt < 0: before it): scheduled moves and the
+ * intensity schedule move by −dt. Moves still ahead keep their order; moves already passed are
+ * dropped when dt > 0 (a move at exactly dt is still ahead: it happens at that instant).
+ */
+export function specFrom(spec: ModelSpec, dt: number): ModelSpec {
+  if (!hasDatedRisk(spec) || dt === 0) return spec;
+  const out: ModelSpec = { diffusion: spec.diffusion, jumps: spec.jumps };
+  if (spec.events?.length) {
+    out.events = spec.events
+      .filter((e) => e.time >= dt || dt < 0)
+      .map((e) => ({ ...e, time: e.time - dt }));
+  }
+  if (spec.intensitySchedule?.length)
+    out.intensitySchedule = shiftSchedule(spec.intensitySchedule, dt);
+  return out;
+}

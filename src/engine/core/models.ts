@@ -6,7 +6,10 @@ import type { Model, ModelOf } from './types';
 
 /** The model as a diffusion and a jump law, for the characteristic function and the paths. */
 export function modelSpec(model: Model): ModelSpec {
-  return MODEL_REGISTRY[model.kind].spec(model);
+  const spec: ModelSpec = MODEL_REGISTRY[model.kind].spec(model);
+  if (model.events?.length) spec.events = model.events;
+  if (model.jumpIntensitySchedule?.length) spec.intensitySchedule = model.jumpIntensitySchedule;
+  return spec;
 }
 
 /** A parameter's value (the caller knows the kind takes it). */
@@ -19,7 +22,7 @@ export const hasStochasticVariance = (kind: ModelKind): boolean =>
 /** Whether the kind has a jump part. */
 export const hasJumps = (kind: ModelKind): boolean => parametersIn(kind, 'jumps').length > 0;
 
-/** The jump arrival rate per year, 0 for a kind without jumps. */
+/** The jump arrival rate per year after any schedule, 0 for a kind without jumps. */
 export function jumpIntensityOf(model: Model): number {
   const jumps = modelSpec(model).jumps;
   return jumps.type === 'none' ? 0 : jumps.jumpIntensity;
@@ -51,9 +54,14 @@ export function convertModel<K extends ModelKind>(model: Model, kind: K): ModelO
     carried.v0 = model.sigma ** 2;
     carried.theta = model.sigma ** 2;
   }
-  return modelFrom(kind, carried, (p) => PARAMETER_SPECS[p].default);
+  const out: Record<string, unknown> = modelFrom(kind, carried, (p) => PARAMETER_SPECS[p].default);
+  // dated risk rides along; an intensity schedule only where the new kind has jumps
+  if (model.events) out.events = model.events;
+  if (model.jumpIntensitySchedule && hasJumps(kind))
+    out.jumpIntensitySchedule = model.jumpIntensitySchedule;
+  return out as ModelOf<K>;
 }
 
 /** A constant vol and no jumps: Black-Scholes, priced in closed form. */
 export const isBlackScholes = (spec: ModelSpec): boolean =>
-  spec.diffusion.type === 'constant' && spec.jumps.type === 'none';
+  spec.diffusion.type === 'constant' && spec.jumps.type === 'none' && !spec.events?.length;

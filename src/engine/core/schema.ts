@@ -10,6 +10,7 @@ import { isoDateSchema } from './dates';
 import { bounded, inDomainOf, positiveUpTo } from './fields';
 import { MODEL_KINDS, parametersOf, type ModelKind, type ParametersOf } from './model-registry';
 import { PARAMETER_SPECS } from './parameters';
+import { eventsSchema, intensityScheduleSchema } from './scheduled-moves';
 import type { StressField } from './stress-fields';
 
 export const SCENARIO_FORMAT = 'saltation/scenario@1';
@@ -30,8 +31,14 @@ export const marketSchema = z.looseObject({
   dividendCurve: curve.optional(),
 });
 
+/** Dated risk any kind may carry: scheduled moves, and (kinds with jumps) an intensity schedule. */
+interface DatedFields {
+  events: z.ZodOptional<typeof eventsSchema>;
+  jumpIntensitySchedule: z.ZodOptional<typeof intensityScheduleSchema>;
+}
+
 type KindSchema<K extends ModelKind> = z.ZodObject<
-  { kind: z.ZodLiteral<K> } & { [P in ParametersOf<K>]: z.ZodType<number> },
+  { kind: z.ZodLiteral<K> } & { [P in ParametersOf<K>]: z.ZodType<number> } & DatedFields,
   z.core.$loose
 >;
 
@@ -41,7 +48,16 @@ function kindSchema(kind: ModelKind): AnyKindSchema {
   const fields = Object.fromEntries(
     parametersOf(kind).map((p) => [p, inDomainOf(PARAMETER_SPECS[p].domain)]),
   );
-  const schema: z.ZodType = z.looseObject({ kind: z.literal(kind), ...fields });
+  const takesSchedule = parametersOf(kind).includes('jumpIntensity');
+  const schedule = takesSchedule
+    ? intensityScheduleSchema.optional()
+    : z.undefined({ error: 'only a model with jumps takes a jump-intensity schedule' }).optional();
+  const schema: z.ZodType = z.looseObject({
+    kind: z.literal(kind),
+    ...fields,
+    events: eventsSchema.optional(),
+    jumpIntensitySchedule: schedule,
+  });
   return schema as AnyKindSchema;
 }
 

@@ -4,6 +4,7 @@
  * ψc = 1.5; or full-truncation Euler) and the compound-Poisson jumps with their compensator.
  */
 import type { JumpLaw, ModelSpec } from '../analytic/characteristic';
+import { twoPointOutcomes, type ScheduledMove } from '../core/scheduled-moves';
 import type { BlockRandom } from './random';
 
 /**
@@ -70,11 +71,14 @@ export function diffusionStep(
   };
 }
 
-/** The sum of a step's log-jumps (0 when none), or null for a model without jumps. */
-export function jumpSampler(jl: JumpLaw, dt: number): ((rng: BlockRandom) => number) | null {
-  if (jl.type === 'none' || !(jl.jumpIntensity > 0)) return null;
-  const lam = jl.jumpIntensity * dt;
-  const p0 = Math.exp(-lam);
+/**
+ * The sum of a step's log-jumps (0 when none) given the step's expected jump count `lam` and
+ * e^{−lam}, or null for a model without jumps.
+ */
+export function jumpSampler(
+  jl: JumpLaw,
+): ((rng: BlockRandom, lam: number, p0: number) => number) | null {
+  if (jl.type === 'none') return null;
   const size =
     jl.type === 'lognormal'
       ? (rng: BlockRandom) => jl.jumpMean + jl.jumpStdev * rng.normal()
@@ -82,7 +86,8 @@ export function jumpSampler(jl: JumpLaw, dt: number): ((rng: BlockRandom) => num
           rng.uniform() < jl.upProbability
             ? -jl.upMean * Math.log(rng.uniform())
             : jl.downMean * Math.log(rng.uniform());
-  return (rng) => {
+  return (rng, lam, p0) => {
+    if (!(lam > 0)) return 0;
     // Poisson count by inversion (λΔ is small), then the sum of that many log-jumps
     let u = rng.uniform();
     let k = 0;
@@ -98,14 +103,17 @@ export function jumpSampler(jl: JumpLaw, dt: number): ((rng: BlockRandom) => num
   };
 }
 
-/** λk̄: the jumps' compensator per unit time, k̄ = E[e^J] − 1. */
-export function compensator(jl: JumpLaw): number {
-  if (jl.type === 'lognormal')
-    return jl.jumpIntensity * Math.expm1(jl.jumpMean + 0.5 * jl.jumpStdev * jl.jumpStdev);
+/** k̄ = E[e^J] − 1 for one jump (0 without jumps). */
+export function meanRelativeJump(jl: JumpLaw): number {
+  if (jl.type === 'lognormal') return Math.expm1(jl.jumpMean + 0.5 * jl.jumpStdev * jl.jumpStdev);
   if (jl.type === 'double-exponential')
-    return (
-      jl.jumpIntensity *
-      (jl.upProbability / (1 - jl.upMean) + (1 - jl.upProbability) / (1 + jl.downMean) - 1)
-    );
+    return jl.upProbability / (1 - jl.upMean) + (1 - jl.upProbability) / (1 + jl.downMean) - 1;
   return 0;
+}
+
+/** A scheduled move's log-move X drawn from its law (one normal, or one uniform). */
+export function drawMove(e: ScheduledMove, rng: BlockRandom): number {
+  if (e.law === 'normal') return -0.5 * e.stdev * e.stdev + e.stdev * rng.normal();
+  const { up, down, p } = twoPointOutcomes(e);
+  return rng.uniform() < p ? up : down;
 }

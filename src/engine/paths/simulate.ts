@@ -10,7 +10,9 @@
 import { modelSpec } from '../analytic/characteristic';
 import { discountFactor, dividendRate, riskFreeRate } from '../core/market';
 import { histogramInto, type HistogramSpec } from './histogram';
-import { compensator, diffusionStep, jumpSampler } from './path-step';
+import { diffusionStep, drawMove, jumpSampler, meanRelativeJump } from './path-step';
+import { settlementStep, stepGrid, type StepGrid } from './step-grid';
+import type { ModelSpec } from '../core/model-spec';
 import { BlockRandom } from './random';
 import type { Market, Model, OptionSpec } from '../core/types';
 
@@ -65,10 +67,36 @@ export interface BlockSums {
   terminal: Float64Array;
   record?: PathRecord;
   histogram?: Uint32Array;
+  /** the grid's step count, and per option the time of the boundary where it settles */
+  steps: number;
+  settleTimes: Float64Array;
 }
 
 export function stepCount(s: Pick<SimulationSettings, 'horizon' | 'stepsPerYear'>): number {
   return Math.max(1, Math.round(s.horizon * s.stepsPerYear));
+}
+
+/** The simulation's time grid: even steps, with scheduled moves' dates as boundaries. */
+export function simulationGrid(
+  market: Market,
+  spec: ModelSpec,
+  s: Pick<SimulationSettings, 'horizon' | 'stepsPerYear'>,
+): StepGrid {
+  const carry = riskFreeRate(market, s.horizon) - dividendRate(market, s.horizon);
+  return stepGrid(spec, s.horizon, stepCount(s), carry, meanRelativeJump(spec.jumps));
+}
+
+type Advance = ReturnType<typeof diffusionStep>;
+
+/** One diffusion step per distinct (Δt, drift), shared by the steps that have them. */
+export function stepAdvances(spec: ModelSpec, scheme: 'qe' | 'euler', grid: StepGrid): Advance[] {
+  const made = new Map<string, Advance>();
+  return Array.from(grid.dt, (dt, k) => {
+    const key = `${dt}|${grid.drift[k]}`;
+    let f = made.get(key);
+    if (!f) made.set(key, (f = diffusionStep(spec, scheme, dt, grid.drift[k])));
+    return f;
+  });
 }
 
 /** Runs one block of paths and returns its sums. */
@@ -79,17 +107,17 @@ export function simulateBlock(
   block: number,
 ): BlockSums {
   const spec = modelSpec(model);
-  const n = stepCount(s);
-  const dt = s.horizon / n;
+  const grid = simulationGrid(market, spec, s);
+  const n = grid.steps;
   const first = block * BLOCK_PATHS;
   const count = Math.min(BLOCK_PATHS, s.paths - first);
   const rng = new BlockRandom(s.seed, block);
-  const jumpStep = jumpSampler(spec.jumps, dt);
-  const drift =
-    (riskFreeRate(market, s.horizon) - dividendRate(market, s.horizon) - compensator(spec.jumps)) *
-    dt;
-  const optionSteps = s.options.map((o) => Math.min(n, Math.max(1, Math.round(o.expiry / dt))));
-  const discounts = s.options.map((_, i) => discountFactor(market, optionSteps[i] * dt));
+  const jumpStep = jumpSampler(spec.jumps);
+  const lam = grid.expectedJumps;
+  const p0 = lam.map((l) => Math.exp(-l));
+  const moves = grid.movesAt;
+  const optionSteps = s.options.map((o) => settlementStep(grid, o.expiry));
+  const discounts = s.options.map((_, i) => discountFactor(market, grid.times[optionSteps[i]]));
   const sums: BlockSums = {
     payoff: new Float64Array(s.options.length),
     payoffSq: new Float64Array(s.options.length),
@@ -101,23 +129,23 @@ export function simulateBlock(
     terminalSq: 0,
     jumps: 0,
     terminal: new Float64Array(count),
+    steps: n,
+    settleTimes: Float64Array.from(optionSteps, (k) => grid.times[k]),
   };
   const d = spec.diffusion;
   const heston = d.type === 'heston';
-  const advance = diffusionStep(spec, s.scheme, dt, drift);
+  const advances = stepAdvances(spec, s.scheme, grid);
   const state = new Float64Array(2);
   const values = new Float64Array(s.options.length);
   const previous = new Float64Array(s.options.length);
   const controls = new Float64Array(s.options.length);
   const previousControls = new Float64Array(s.options.length);
-  const obs = block === 0 && s.recordTimes ? Math.min(s.recordTimes, n) : 0;
   const obsStep =
-    obs > 0
-      ? Int32Array.from({ length: obs }, (_, i) => Math.round(((i + 1) * n) / obs))
-      : new Int32Array(0);
+    block === 0 && s.recordTimes ? recordSteps(grid, s.recordTimes) : new Int32Array(0);
+  const obs = obsStep.length;
   if (obs > 0) {
     sums.record = {
-      times: Float64Array.from(obsStep, (st) => st * dt),
+      times: Float64Array.from(obsStep, (st) => grid.times[st]),
       spot: new Float32Array(count * obs),
       variance: new Float32Array(count * obs),
       jumpCounts: new Uint16Array(count),
@@ -152,13 +180,15 @@ export function simulateBlock(
           pairU[step - 1] = u;
         }
       }
+      // a scheduled move dated t_{step−1} lands at the start of this step
+      for (const e of moves[step - 1]) x += drawMove(e, rng);
       state[0] = x;
       state[1] = v;
-      advance(state, z1, z2, u);
+      advances[step - 1](state, z1, z2, u);
       x = state[0];
       v = state[1];
       if (jumpStep) {
-        const j = jumpStep(rng);
+        const j = jumpStep(rng, lam[step - 1], p0[step - 1]);
         if (j !== 0) {
           sums.jumps++;
           pathJumps++;
@@ -210,6 +240,22 @@ export function simulateBlock(
     if (sums.histogram) histogramInto(sums.histogram, s.histogram!, x);
   }
   return sums;
+}
+
+/**
+ * The steps at which block 0 records its paths: `count` evenly spaced ones, plus each scheduled
+ * move's boundary and the step after it, so that a fan shows the move as a step.
+ */
+function recordSteps(grid: StepGrid, count: number): Int32Array {
+  const n = grid.steps;
+  const obs = Math.min(count, n);
+  const steps = Array.from({ length: obs }, (_, i) => Math.round(((i + 1) * n) / obs));
+  if (!grid.even) {
+    grid.movesAt.forEach((m, k) => {
+      if (m.length > 0 && k > 0) steps.push(k, Math.min(n, k + 1));
+    });
+  }
+  return Int32Array.from(new Set(steps)).sort();
 }
 
 export interface SimulationResult {
@@ -265,7 +311,7 @@ export function combineBlocks(
     jumps += b.jumps;
   }
   const horizonCarry = riskFreeRate(market, s.horizon) - dividendRate(market, s.horizon);
-  const dt = s.horizon / stepCount(s);
+  const first = blocks[0];
   const estimates = Array.from({ length: k }, (_, i) => {
     const mean = payoff[i] / n;
     let stdError: number;
@@ -278,7 +324,7 @@ export function combineBlocks(
       stdError = Math.sqrt(Math.max(0, variance) / Math.max(1, n - 1));
     }
     // control variate: y = DF(t)·S_t, E[y] = DF(t)·S_0·e^{(r − q)t} with the simulation's own carry
-    const t = Math.min(stepCount(s), Math.max(1, Math.round(s.options[i].expiry / dt))) * dt;
+    const t = first.settleTimes[i];
     const ey = discountFactor(market, t) * market.spot * Math.exp(horizonCarry * t);
     const [sx, sy, sxx, syy, sxy] = [
       cv[5 * i],
@@ -316,7 +362,7 @@ export function combineBlocks(
   return {
     seed: s.seed,
     paths: n,
-    steps: stepCount(s),
+    steps: first.steps,
     estimates,
     terminal: {
       mean: market.spot * meanLevel,

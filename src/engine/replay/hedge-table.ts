@@ -11,6 +11,7 @@ import { cosStrip, DEFAULT_COS_SETTINGS, prepareCos } from '../analytic/cos';
 import { roughVariance } from '../analytic/cumulants';
 import { discountFactor, forwardPrice } from '../core/market';
 import { hasStochasticVariance, parameterValue } from '../core/models';
+import { specFrom } from '../core/model-spec';
 import type { Market, Model, OptionSpec } from '../core/types';
 
 export interface Leg extends OptionSpec {
@@ -68,11 +69,15 @@ export function buildHedgeTable(
     const alive = expiries.filter((T) => T - t > 1e-10);
     if (alive.length === 0) return;
     const tauMin = Math.min(...alive.map((T) => T - t));
-    const sd = Math.sqrt(roughVariance(spec0, tauMin)) + 1e-4;
+    // scheduled moves and the intensity schedule as seen from t (a move dated t is still ahead)
+    const specNow = specFrom(spec0, t);
+    const sd = Math.sqrt(roughVariance(specNow, tauMin)) + 1e-4;
     x0[ti] = kLo - 8 * sd;
     dx[ti] = (kHi - kLo + 16 * sd) / (nx - 1);
     for (let vi = 0; vi < nv; vi++) {
-      const spec = stochastic ? modelSpec({ ...model, v0: variances[vi] } as Model) : spec0;
+      const spec = stochastic
+        ? specFrom(modelSpec({ ...model, v0: variances[vi] } as Model), t)
+        : specNow;
       for (const T of alive) {
         const tau = T - t;
         const growth = forwardPrice(market, T) / forwardPrice(market, t);

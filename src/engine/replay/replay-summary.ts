@@ -6,32 +6,50 @@
 
 export interface ReplaySummary {
   pnl: { mean: number; stdev: number; var99: number; es99: number; worst: number };
-  /** mean P&L booked on steps with and without a jump, and the same over the worst 1 % of paths */
-  attribution: { diffusion: number; jumps: number; tailDiffusion: number; tailJumps: number };
+  /**
+   * mean P&L booked on steps with a scheduled move, on steps with a jump (and no move), and on
+   * the rest, and the same over the worst 1 % of paths
+   */
+  attribution: {
+    diffusion: number;
+    jumps: number;
+    events: number;
+    tailDiffusion: number;
+    tailJumps: number;
+    tailEvents: number;
+  };
   /** the index of the worst path, for drill-down */
   worstPath: number;
   /** FNV-1a over the IEEE-754 bits of every path's P&L, in path order */
   digest: string;
 }
 
-export function summariseReplay(pnl: Float64Array, onJumps: Float64Array): ReplaySummary {
+export function summariseReplay(
+  pnl: Float64Array,
+  onJumps: Float64Array,
+  onEvents: Float64Array = new Float64Array(pnl.length),
+): ReplaySummary {
   const n = pnl.length;
   let sum = 0;
   let sq = 0;
   let jumpSum = 0;
+  let eventSum = 0;
   for (let i = 0; i < n; i++) {
     sum += pnl[i];
     sq += pnl[i] * pnl[i];
     jumpSum += onJumps[i];
+    eventSum += onEvents[i];
   }
   const mean = sum / n;
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => pnl[a] - pnl[b] || a - b);
   const tail = Math.max(1, Math.floor(0.01 * n));
   let tailSum = 0;
   let tailJumps = 0;
+  let tailEvents = 0;
   for (let i = 0; i < tail; i++) {
     tailSum += pnl[order[i]];
     tailJumps += onJumps[order[i]];
+    tailEvents += onEvents[order[i]];
   }
   return {
     pnl: {
@@ -42,10 +60,12 @@ export function summariseReplay(pnl: Float64Array, onJumps: Float64Array): Repla
       worst: pnl[order[0]],
     },
     attribution: {
-      diffusion: mean - jumpSum / n,
+      diffusion: mean - jumpSum / n - eventSum / n,
       jumps: jumpSum / n,
-      tailDiffusion: tailSum / tail - tailJumps / tail,
+      events: eventSum / n,
+      tailDiffusion: tailSum / tail - tailJumps / tail - tailEvents / tail,
       tailJumps: tailJumps / tail,
+      tailEvents: tailEvents / tail,
     },
     worstPath: order[0],
     digest: digestBits(pnl),

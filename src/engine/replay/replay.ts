@@ -11,11 +11,12 @@ import { modelSpec } from '../analytic/characteristic';
 import { buildHedgeTable, lookup, type Leg } from './hedge-table';
 import { discountFactor, dividendRate, forwardPrice, riskFreeRate } from '../core/market';
 import { normCdf } from '../analytic/normal';
-import { compensator, diffusionStep, jumpSampler } from '../paths/path-step';
+import { drawMove, jumpSampler, meanRelativeJump } from '../paths/path-step';
+import { settlementStep, stepGrid } from '../paths/step-grid';
+import { stepAdvances, BLOCK_PATHS } from '../paths/simulate';
 import { priceOptions } from '../analytic/pricing';
 import { BlockRandom } from '../paths/random';
 import { summariseReplay, type ReplaySummary } from './replay-summary';
-import { BLOCK_PATHS } from '../paths/simulate';
 import type { Market, Model } from '../core/types';
 
 export interface HedgeSettings {
@@ -43,6 +44,13 @@ export interface ReplayResult extends ReplaySummary {
   elapsedMs: number;
 }
 
+/** One block's per-path P&L, and the parts of it booked on jump steps and on scheduled-move steps. */
+export interface BlockPnl {
+  pnl: Float64Array;
+  onJumps: Float64Array;
+  onEvents: Float64Array;
+}
+
 /** One path followed step by step, for drill-down: values at each rebalance and at the end. */
 export interface PathTrace {
   path: number;
@@ -55,6 +63,8 @@ export interface PathTrace {
   pnl: number[];
   /** steps that had a jump: the time at the step's end and the log-jump */
   jumps: { time: number; size: number }[];
+  /** scheduled moves: their date and the log-move drawn */
+  events: { time: number; size: number }[];
 }
 
 /** Everything a replay needs before the first path: the grid, the hedge table, the premium. */
@@ -64,7 +74,10 @@ export interface ReplayPlan {
   dt: number;
   horizon: number;
   premium: number;
-  runPath: (rng: BlockRandom, trace: PathTrace | null) => { total: number; jumpPart: number };
+  runPath: (
+    rng: BlockRandom,
+    trace: PathTrace | null,
+  ) => { total: number; jumpPart: number; eventPart: number };
 }
 
 export function blockCountFor(paths: number): number {
@@ -74,21 +87,31 @@ export function blockCountFor(paths: number): number {
 export function planReplay(req: ReplayRequest): ReplayPlan {
   const { market, model, position, hedge } = req;
   const horizon = Math.max(...position.map((l) => l.expiry));
-  const n = Math.max(1, Math.round(horizon * 365 * hedge.rebalancesPerDay));
-  const dt = horizon / n;
-  const times = Array.from({ length: n }, (_, k) => k * dt);
   const spec = modelSpec(model);
   const r = riskFreeRate(market, horizon);
   const q = dividendRate(market, horizon);
-  const drift = (r - q - compensator(spec.jumps)) * dt;
-  const advance = diffusionStep(spec, 'qe', dt, drift);
-  const jumps = jumpSampler(spec.jumps, dt);
+  // even rebalances, with every scheduled move's date a rebalance too (the hedge is set just
+  // before the move lands)
+  const grid = stepGrid(
+    spec,
+    horizon,
+    Math.max(1, Math.round(horizon * 365 * hedge.rebalancesPerDay)),
+    r - q,
+    meanRelativeJump(spec.jumps),
+  );
+  const n = grid.steps;
+  const times = Array.from(grid.times.subarray(0, n));
+  const dt = horizon / n;
+  const advances = stepAdvances(spec, 'qe', grid);
+  const jumps = jumpSampler(spec.jumps);
+  const lam = grid.expectedJumps;
+  const p0 = lam.map((l) => Math.exp(-l));
   const table = buildHedgeTable(market, model, position, times);
   const inception = priceOptions(market, model, position);
   const premium = position.reduce((a, l, i) => a + l.quantity * inception[i].price, 0);
   const hedgeVols = inception.map((o) => hedge.hedgeVol ?? o.impliedVol ?? 0.2);
   const cost = hedge.costBps / 1e4;
-  const accrual = Math.exp(r * dt);
+  const accrual = Float64Array.from(grid.dt, (h) => Math.exp(r * h));
   const v0 = spec.diffusion.type === 'heston' ? spec.diffusion.v0 : 0;
   const state = new Float64Array(2);
   const S0 = market.spot;
@@ -126,7 +149,7 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
   };
   // legs settling at each step
   const settles: Leg[][] = Array.from({ length: n + 1 }, () => []);
-  for (const l of position) settles[Math.min(n, Math.max(1, Math.round(l.expiry / dt)))].push(l);
+  for (const l of position) settles[settlementStep(grid, l.expiry)].push(l);
   const payoff = (k: number, S: number) => {
     let a = 0;
     for (const l of settles[k])
@@ -141,6 +164,7 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
     let mark = premium;
     let total = 0;
     let jumpPart = 0;
+    let eventPart = 0;
     for (let k = 0; k < n; k++) {
       const S = S0 * Math.exp(state[0]);
       const before = mark + shares * S + cash; // the portfolio's value at the start of the step
@@ -156,28 +180,36 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
         trace.shares.push(shares);
         trace.pnl.push(total);
       }
-      // one step of the model
+      // one step of the model: the scheduled moves dated t_k land first
+      const moves = grid.movesAt[k];
+      for (const e of moves) {
+        const x = drawMove(e, rng);
+        state[0] += x;
+        if (trace) trace.events.push({ time: times[k], size: x });
+      }
       const z1 = rng.normal();
       const z2 = rng.normal();
       const u = rng.uniform();
-      advance(state, z1, z2, u);
+      advances[k](state, z1, z2, u);
       let jumped = false;
       if (jumps) {
-        const j = jumps(rng);
+        const j = jumps(rng, lam[k], p0[k]);
         if (j !== 0) {
           jumped = true;
           state[0] += j;
-          if (trace) trace.jumps.push({ time: (k + 1) * dt, size: j });
+          if (trace) trace.jumps.push({ time: grid.times[k + 1], size: j });
         }
       }
       const S1 = S0 * Math.exp(state[0]);
-      cash *= accrual;
-      cash += shares * q * S * dt; // dividends on the shares held
+      cash *= accrual[k];
+      cash += shares * q * S * grid.dt[k]; // dividends on the shares held
       cash += payoff(k + 1, S1);
       mark = k + 1 < n ? lookup(table, k + 1, state[1], state[0], S0).value : 0;
       const step = mark + shares * S1 + cash - before;
       total += step;
-      if (jumped) jumpPart += step;
+      // a step with a scheduled move is booked to it, even when a jump came too
+      if (moves.length > 0) eventPart += step;
+      else if (jumped) jumpPart += step;
     }
     // liquidate the hedge at the end
     total -= cost * Math.abs(shares) * S0 * Math.exp(state[0]);
@@ -188,28 +220,27 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
       trace.shares.push(0);
       trace.pnl.push(total);
     }
-    return { total, jumpPart };
+    return { total, jumpPart, eventPart };
   };
   return { request: req, steps: n, dt, horizon, premium, runPath };
 }
 
-/** The discounted P&L of one block's paths, and the part of it booked on jump steps. */
-export function replayBlock(
-  plan: ReplayPlan,
-  block: number,
-): { pnl: Float64Array; onJumps: Float64Array } {
+/** The discounted P&L of one block's paths, and the parts booked on jump and move steps. */
+export function replayBlock(plan: ReplayPlan, block: number): BlockPnl {
   const { request } = plan;
   const rng = new BlockRandom(request.seed, block);
   const count = Math.min(BLOCK_PATHS, request.paths - block * BLOCK_PATHS);
   const pnl = new Float64Array(count);
   const onJumps = new Float64Array(count);
+  const onEvents = new Float64Array(count);
   const discount = discountFactor(request.market, plan.horizon);
   for (let p = 0; p < count; p++) {
-    const { total, jumpPart } = plan.runPath(rng, null);
+    const { total, jumpPart, eventPart } = plan.runPath(rng, null);
     pnl[p] = total * discount;
     onJumps[p] = jumpPart * discount;
+    onEvents[p] = eventPart * discount;
   }
-  return { pnl, onJumps };
+  return { pnl, onJumps, onEvents };
 }
 
 /** Reruns the block of one path up to it and follows that path step by step. */
@@ -225,35 +256,30 @@ export function tracePath(plan: ReplayPlan, path: number): PathTrace {
     shares: [],
     pnl: [],
     jumps: [],
+    events: [],
   };
   plan.runPath(rng, trace);
   return trace;
 }
 
-/** One run's blocks end to end, in block order: every path's P&L and its jump-step part. */
-export function joinBlocks(
-  paths: number,
-  blocks: { pnl: Float64Array; onJumps: Float64Array }[],
-): { pnl: Float64Array; onJumps: Float64Array } {
+/** One run's blocks end to end, in block order: every path's P&L and its jump and move parts. */
+export function joinBlocks(paths: number, blocks: readonly BlockPnl[]): BlockPnl {
   const pnl = new Float64Array(paths);
   const onJumps = new Float64Array(paths);
+  const onEvents = new Float64Array(paths);
   blocks.forEach((b, i) => {
     pnl.set(b.pnl, i * BLOCK_PATHS);
     onJumps.set(b.onJumps, i * BLOCK_PATHS);
+    onEvents.set(b.onEvents, i * BLOCK_PATHS);
   });
-  return { pnl, onJumps };
+  return { pnl, onJumps, onEvents };
 }
 
 type RunMeta = Pick<ReplayPlan, 'request' | 'steps' | 'premium'>;
 
-export function replayResult(
-  meta: RunMeta,
-  pnl: Float64Array,
-  onJumps: Float64Array,
-  elapsedMs: number,
-): ReplayResult {
+export function replayResult(meta: RunMeta, joined: BlockPnl, elapsedMs: number): ReplayResult {
   return {
-    ...summariseReplay(pnl, onJumps),
+    ...summariseReplay(joined.pnl, joined.onJumps, joined.onEvents),
     premium: meta.premium,
     steps: meta.steps,
     paths: meta.request.paths,
@@ -264,17 +290,16 @@ export function replayResult(
 /** Puts blocks (in block order) together and summarises them, as one thread would. */
 export function combineReplay(
   meta: RunMeta,
-  blocks: { pnl: Float64Array; onJumps: Float64Array }[],
+  blocks: readonly BlockPnl[],
   elapsedMs: number,
 ): ReplayResult & { pnlByPath: Float64Array } {
-  const { pnl, onJumps } = joinBlocks(meta.request.paths, blocks);
-  return { ...replayResult(meta, pnl, onJumps, elapsedMs), pnlByPath: pnl };
+  const joined = joinBlocks(meta.request.paths, blocks);
+  return { ...replayResult(meta, joined, elapsedMs), pnlByPath: joined.pnl };
 }
 
 export function replay(req: ReplayRequest): ReplayResult {
   const started = performance.now();
   const plan = planReplay(req);
   const blocks = Array.from({ length: blockCountFor(req.paths) }, (_, b) => replayBlock(plan, b));
-  const { pnl, onJumps } = joinBlocks(req.paths, blocks);
-  return replayResult(plan, pnl, onJumps, performance.now() - started);
+  return replayResult(plan, joinBlocks(req.paths, blocks), performance.now() - started);
 }
