@@ -1,6 +1,12 @@
 /** The CLI commands over the engine; each validates its request and times only engine work. */
 import { z } from 'zod';
-import { priceOptions, impliedVol, smileSurface, type SmileSurface } from '../src/engine/analytic';
+import {
+  impliedEventMoves,
+  priceOptions,
+  impliedVol,
+  smileSurface,
+  type SmileSurface,
+} from '../src/engine/analytic';
 import { calibrate as calibrateModel, completeGuess } from '../src/engine/fit';
 import {
   parametersOf,
@@ -113,13 +119,35 @@ export function smile(request: unknown) {
     }
     stressed = smileSurface(s.market, s.model, doc.grid.expiries, doc.grid.moneyness);
   }
+  const events = doc.model.events ?? [];
+  const { eventBaseVol } = parse(eventBaseVolSchema, doc);
+  const eventMoves =
+    events.length > 0
+      ? impliedEventMoves(
+          events.map((e) => e.time),
+          base.slices.map((s) => s.expiry),
+          base.slices.map((s) => s.atm),
+          eventBaseVol,
+        )
+      : undefined;
   const elapsedMs = performance.now() - started;
   return {
     ...surfaceJson(base),
     ...(stressed ? { stressed: surfaceJson(stressed) } : {}),
+    ...(eventMoves ? { eventMoves } : {}),
     elapsedMs,
   };
 }
+
+/** The base vol of the implied event moves; the ATM vol before each event when absent. */
+const eventBaseVolSchema = z
+  .object({
+    eventBaseVol: z
+      .number({ error: 'must be a number' })
+      .refine((x) => Number.isFinite(x) && x > 0 && x < 5, 'must be above 0 and below 5')
+      .optional(),
+  })
+  .loose();
 
 const revalueRequest = z.object({
   market: marketSchema,
@@ -199,6 +227,10 @@ const calibrateRequest = z.object({
     .loose(),
   quotes: z.array(quoteSchema).min(1, 'needs at least one quote').max(5000),
   weights: z.enum(['uniform', 'vega']).optional(),
+  fitEventSizes: z
+    .array(z.number().int('must be a whole number').min(0, 'must be 0 or more'))
+    .max(50)
+    .optional(),
 });
 
 export function calibrate(request: unknown) {
@@ -214,6 +246,14 @@ export function calibrate(request: unknown) {
       'model.fixed',
     );
   const guess = completeGuess(kind, req.model);
+  const eventCount = Array.isArray(req.model.events) ? req.model.events.length : 0;
+  const badEvent = (req.fitEventSizes ?? []).findIndex((i) => i >= eventCount);
+  if (badEvent >= 0)
+    throw new CliError(
+      'invalid-input',
+      `fitEventSizes.${badEvent}: the model has no event ${req.fitEventSizes![badEvent]}`,
+      `fitEventSizes.${badEvent}`,
+    );
   const guessCheck = modelSchema.safeParse(guess);
   if (!guessCheck.success) {
     const i = guessCheck.error.issues[0];
@@ -245,6 +285,7 @@ export function calibrate(request: unknown) {
     market,
     model: guess,
     fixed,
+    fitEventSizes: req.fitEventSizes,
     quotes,
     weights: req.weights ?? 'uniform',
   });
@@ -298,8 +339,24 @@ export function replay(request: unknown) {
   });
   return {
     pnl: r.pnl,
-    attribution: { diffusion: r.attribution.diffusion, jumps: r.attribution.jumps },
-    tail: { diffusion: r.attribution.tailDiffusion, jumps: r.attribution.tailJumps },
+    // P&L on steps with a scheduled move is its own part, present when the model has moves
+    ...(req.model.events?.length
+      ? {
+          attribution: {
+            diffusion: r.attribution.diffusion,
+            jumps: r.attribution.jumps,
+            events: r.attribution.events,
+          },
+          tail: {
+            diffusion: r.attribution.tailDiffusion,
+            jumps: r.attribution.tailJumps,
+            events: r.attribution.tailEvents,
+          },
+        }
+      : {
+          attribution: { diffusion: r.attribution.diffusion, jumps: r.attribution.jumps },
+          tail: { diffusion: r.attribution.tailDiffusion, jumps: r.attribution.tailJumps },
+        }),
     worstPath: r.worstPath,
     digest: r.digest,
     premium: r.premium,

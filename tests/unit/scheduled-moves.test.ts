@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { blackPrice, priceOptions } from '../../src/engine/analytic';
+import {
+  blackPrice,
+  impliedEventMove,
+  impliedEventMoves,
+  priceOptions,
+  smileSurface,
+} from '../../src/engine/analytic';
 import {
   forwardPrice,
   discountFactor,
@@ -240,5 +246,64 @@ describe('validation of dated risk', () => {
       validateModel({ kind: 'black-scholes', sigma: 0.2, jumpIntensitySchedule: [[0.1, 1]] })[0]
         .path,
     ).toBe('jumpIntensitySchedule');
+  });
+});
+
+describe('the implied event move from the ATM term structure (common practice: forward-variance arithmetic)', () => {
+  const m = market(100, 0.02, 0.01);
+  const grid = [3 / 365, 7 / 365, 14 / 365, 30 / 365];
+
+  it('recovers a known normal move from a Black-Scholes surface within 0.1 vol points', () => {
+    const model = bs(0.18, [{ time: 10 / 365, law: 'normal', stdev: 0.045 }]);
+    const surface = smileSurface(m, model, grid, [0]);
+    const [est] = impliedEventMoves(
+      [10 / 365],
+      grid,
+      surface.slices.map((s) => s.atm),
+    );
+    expect(est.before.expiry).toBe(7 / 365);
+    expect(est.after.expiry).toBe(14 / 365);
+    expect(Math.abs(est.impliedMove! - 0.045)).toBeLessThan(0.001);
+  });
+
+  it('recovers a known normal move from a Bates surface within 0.1 vol points, with the base vol from the same surface without the move', () => {
+    const bates: Model = {
+      kind: 'bates',
+      v0: 0.03,
+      kappa: 2,
+      theta: 0.04,
+      volOfVol: 0.4,
+      rho: -0.6,
+      jumpIntensity: 0.3,
+      jumpMean: -0.06,
+      jumpStdev: 0.08,
+    };
+    const plain = smileSurface(m, bates, grid, [0]).slices.map((s) => s.atm!);
+    const dated = smileSurface(
+      m,
+      { ...bates, events: [{ time: 10 / 365, law: 'normal', stdev: 0.04 }] },
+      grid,
+      [0],
+    );
+    const [T1, T2] = [grid[1], grid[2]];
+    const forwardVol = Math.sqrt((plain[2] ** 2 * T2 - plain[1] ** 2 * T1) / (T2 - T1));
+    const [est] = impliedEventMoves(
+      [10 / 365],
+      grid,
+      dated.slices.map((s) => s.atm),
+      forwardVol,
+    );
+    expect(Math.abs(est.impliedMove! - 0.04)).toBeLessThan(0.001);
+  });
+
+  it('gives no estimate without an expiry after the event', () => {
+    expect(
+      impliedEventMoves(
+        [0.5],
+        grid,
+        grid.map(() => 0.2),
+      ),
+    ).toEqual([]);
+    expect(impliedEventMove(0.3, 0.1, 0.2, 0.2, 0.3)).toBeNull();
   });
 });

@@ -3,6 +3,7 @@ export * from './black';
 export * from './characteristic';
 export * from './cos';
 export * from './cumulants';
+export * from './event-move';
 export * from './implied-vol';
 export * from './lewis';
 export * from './normal';

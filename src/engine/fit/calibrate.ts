@@ -6,7 +6,8 @@
  */
 import { modelSpec } from '../analytic/characteristic';
 import {
-  BOUNDS,
+  boundOf,
+  coordinateValue,
   freeParameters,
   halton,
   onBound,
@@ -16,6 +17,7 @@ import {
 } from './calibration-space';
 import { cosStrip, DEFAULT_COS_SETTINGS, prepareCos, type CosSettings } from '../analytic/cos';
 import { levenbergMarquardt } from './levenberg-marquardt';
+import { eventSizeKey } from './event-sizes';
 import { forwardPrice } from '../core/market';
 import { normPdf } from '../analytic/normal';
 import { impliedVolFromOtm } from '../analytic/pricing';
@@ -36,6 +38,8 @@ export interface CalibrationRequest {
   /** the kind to fit and the starting guess */
   model: Model;
   fixed?: string[];
+  /** scheduled moves (indices into `model.events`) whose size is fitted too */
+  fitEventSizes?: number[];
   quotes: VolQuote[];
   weights?: 'uniform' | 'vega';
   /** multi-start: Halton points screened, and how many of the best are refined */
@@ -112,13 +116,23 @@ function quoteWeights(
   });
 }
 
+/** The coordinates a calibration moves: the free parameters, then the fitted event sizes. */
+export function fittedCoordinates(
+  req: Pick<CalibrationRequest, 'model' | 'fixed' | 'fitEventSizes'>,
+): string[] {
+  return [
+    ...freeParameters(req.model.kind, req.fixed ?? []),
+    ...(req.fitEventSizes ?? []).map(eventSizeKey),
+  ];
+}
+
 export function calibrate(
   req: CalibrationRequest,
   progress?: (fraction: number) => boolean | void,
 ): CalibrationResult {
   const started = performance.now();
-  const names = freeParameters(req.model.kind, req.fixed ?? []);
-  const bounds = names.map((n) => BOUNDS[n]);
+  const names = fittedCoordinates(req);
+  const bounds = names.map(boundOf);
   const w = quoteWeights(req.market, req.quotes, req.weights ?? 'uniform');
   const sqrtW = w.map(Math.sqrt);
   const toModel = (z: ArrayLike<number>) =>
@@ -136,7 +150,9 @@ export function calibrate(
     );
   };
   const cost = (z: Float64Array) => residualsOf(z).reduce((a, r) => a + r * r, 0);
-  const guess = Float64Array.from(names, (n, i) => toUnbounded(req.model[n] as number, bounds[i]));
+  const guess = Float64Array.from(names, (n, i) =>
+    toUnbounded(coordinateValue(req.model, n), bounds[i]),
+  );
   const screen = req.screen ?? 24;
   const starts: Float64Array[] = [guess];
   for (let s = 1; s <= screen; s++) {
@@ -172,7 +188,7 @@ export function calibrate(
 
 /** Fit quality of a model against quotes, at full pricing accuracy. */
 export function report(
-  req: Pick<CalibrationRequest, 'market' | 'quotes' | 'model' | 'fixed'>,
+  req: Pick<CalibrationRequest, 'market' | 'quotes' | 'model' | 'fixed' | 'fitEventSizes'>,
   model: Model,
 ) {
   const vols = modelVols(req.market, model, req.quotes);
@@ -188,7 +204,7 @@ export function report(
   residuals.forEach((r, i) =>
     (byExpiry.get(r.expiry) ?? byExpiry.set(r.expiry, []).get(r.expiry)!).push(sq[i]),
   );
-  const names = freeParameters(model.kind, req.fixed ?? []);
+  const names = fittedCoordinates({ ...req, model });
   const d = modelSpec(model).diffusion;
   const hasHeston = d.type === 'heston';
   const margin = hasHeston ? 2 * d.kappa * d.theta - d.volOfVol ** 2 : 0;
@@ -204,7 +220,7 @@ export function report(
         count: s.length,
       })),
     feller: hasHeston ? { holds: margin >= 0, margin } : null,
-    onBounds: names.filter((n) => onBound(model[n] as number, BOUNDS[n])),
+    onBounds: names.filter((n) => onBound(coordinateValue(model, n), boundOf(n))),
     residuals,
   };
 }

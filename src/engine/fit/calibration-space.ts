@@ -5,6 +5,7 @@
  */
 import { modelFrom, parametersOf, PARAMETER_SPECS, type FitBox } from '../core';
 import type { Model, ModelKind } from '../core/types';
+import { EVENT_SIZE_BOX, eventSize, eventSizeIndex, withEventSize } from './event-sizes';
 
 /** A parameter's calibration box (from the parameter table). */
 export type Bound = FitBox;
@@ -47,17 +48,39 @@ export function freeParameters(kind: ModelKind, fixed: readonly string[]): strin
   return parametersOf(kind).filter((p) => !fixed.includes(p));
 }
 
+/** The box of a calibration coordinate: a model parameter, or a scheduled move's size. */
+export const boundOf = (name: string): Bound =>
+  eventSizeIndex(name) === null ? BOUNDS[name] : EVENT_SIZE_BOX;
+
+/** The value of a calibration coordinate in a model. */
+export function coordinateValue(model: Model, name: string): number {
+  const i = eventSizeIndex(name);
+  if (i === null) return model[name as keyof Model] as number;
+  const e = model.events?.[i];
+  if (!e) throw new RangeError(`the model has no event ${i}`);
+  return eventSize(e);
+}
+
 export function withParameters(
   model: Model,
   names: readonly string[],
   values: ArrayLike<number>,
 ): Model {
-  const m: Record<string, unknown> = { ...model };
-  names.forEach((n, i) => (m[n] = values[i]));
+  let m: Record<string, unknown> = { ...model };
+  names.forEach((n, i) => {
+    const e = eventSizeIndex(n);
+    if (e === null) m[n] = values[i];
+    else m = withEventSize(m as Model, e, values[i]);
+  });
   return m as Model;
 }
 
 /** A full starting guess: the caller's values, typical ones for the parameters not given. */
 export function completeGuess(kind: ModelKind, given: Record<string, unknown>): Model {
-  return modelFrom(kind, given, (p) => PARAMETER_SPECS[p].fit.guess);
+  const m: Record<string, unknown> = modelFrom(kind, given, (p) => PARAMETER_SPECS[p].fit.guess);
+  // dated risk is part of the guess as given
+  if (given.events !== undefined) m.events = given.events;
+  if (given.jumpIntensitySchedule !== undefined)
+    m.jumpIntensitySchedule = given.jumpIntensitySchedule;
+  return m as Model;
 }
