@@ -1,5 +1,10 @@
 /** Every command the engine worker answers; the page side and the worker share this contract. */
-import type { SmileSurface, OptionResult, ParameterSensitivity } from '../engine/analytic';
+import type {
+  EventMoveEstimate,
+  SmileSurface,
+  OptionResult,
+  ParameterSensitivity,
+} from '../engine/analytic';
 import type { DemoChainRequest } from '../engine/fit';
 import type { Stress, FieldIssue, Market, Model, OptionSpec } from '../engine/core';
 import type { LadderSpec, BookScenario, SetRevaluation, Position } from '../engine/book';
@@ -23,6 +28,15 @@ export interface SmileRequest {
   moneyness: number[];
   /** expiry at which to sample the log-return density (optional) */
   densityExpiry?: number;
+  /** base vol for the implied event moves; the ATM vol before each move when absent */
+  eventBaseVol?: number;
+}
+
+/** ATM vols on the expiries of the term-structure chart (denser than the grid with dated risk). */
+export interface AtmTerm {
+  expiries: number[];
+  base: (number | null)[];
+  stressed: (number | null)[] | null;
 }
 
 export interface DensityCurve {
@@ -36,6 +50,9 @@ export interface SmileResponse {
   stressed: SmileSurface | null;
   stressIssues: FieldIssue[];
   density: DensityCurve | null;
+  term: AtmTerm;
+  /** the move the base ATM term structure prices for each scheduled move */
+  eventMoves: EventMoveEstimate[];
   elapsedMs: number;
   engineVersion: string;
 }

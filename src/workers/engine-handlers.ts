@@ -1,12 +1,23 @@
 /** The engine work behind each worker command, as plain functions (also used by tests). */
 import { revalueSet } from '../engine/book';
 import {
+  atmTermStructure,
+  impliedEventMoves,
   priceOptions,
   smileSensitivities,
   logReturnDensity,
   smileSurface,
+  termStructureExpiries,
+  type SmileSurface,
 } from '../engine/analytic';
-import { applyStress, isIdentityStress, ENGINE_VERSION } from '../engine/core';
+import {
+  applyStress,
+  isIdentityStress,
+  ENGINE_VERSION,
+  hasDatedRisk,
+  modelSpec,
+  type Model,
+} from '../engine/core';
 import { demoChainCsv } from '../engine/fit';
 import type {
   EngineApi,
@@ -39,13 +50,50 @@ export function computeSmiles(req: SmileRequest): SmileResponse {
       stressed: stressedModel ? logReturnDensity(stressedModel, req.densityExpiry, points) : null,
     };
   }
+  const eventTimes = (req.model.events ?? []).map((e) => e.time);
+  const term = atmTerm(req.model, stressedModel, base, stressed, eventTimes);
+  const eventMoves =
+    eventTimes.length > 0
+      ? impliedEventMoves(eventTimes, term.expiries, term.base, req.eventBaseVol)
+      : [];
   return {
     base,
     stressed,
     stressIssues,
     density,
+    term,
+    eventMoves,
     elapsedMs: performance.now() - started,
     engineVersion: ENGINE_VERSION,
+  };
+}
+
+/**
+ * The ATM term structure for the chart: the grid's own ATM vols, or with dated risk a denser
+ * curve that brackets every scheduled move.
+ */
+function atmTerm(
+  model: Model,
+  stressedModel: Model | null,
+  base: SmileSurface,
+  stressed: SmileSurface | null,
+  eventTimes: number[],
+): SmileResponse['term'] {
+  if (!hasDatedRisk(modelSpec(model))) {
+    return {
+      expiries: base.slices.map((s) => s.expiry),
+      base: base.slices.map((s) => s.atm),
+      stressed: stressed ? stressed.slices.map((s) => s.atm) : null,
+    };
+  }
+  const expiries = termStructureExpiries(
+    base.slices.map((s) => s.expiry),
+    eventTimes,
+  );
+  return {
+    expiries,
+    base: atmTermStructure(model, expiries),
+    stressed: stressedModel ? atmTermStructure(stressedModel, expiries) : null,
   };
 }
 

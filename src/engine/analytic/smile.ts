@@ -131,3 +131,32 @@ export function logReturnDensity(
   const prep = prepareCos(modelSpec(model), expiry, DEFAULT_COS_SETTINGS);
   return points.map((y) => cosDensity(prep, y));
 }
+
+/**
+ * Expiries for an ATM term-structure curve: log-spaced from one day to `last`, the given
+ * expiries, and around each scheduled move its date (which it does not touch) and one day
+ * after, so the curve shows the step the move puts into total variance.
+ */
+export function termStructureExpiries(
+  expiries: readonly number[],
+  eventTimes: readonly number[],
+  last = Math.max(...expiries),
+  points = 36,
+): number[] {
+  const day = 1 / 365;
+  const first = Math.min(day, last);
+  const set = new Set<number>(expiries);
+  for (let i = 0; i < points; i++) set.add(first * (last / first) ** (i / (points - 1)));
+  for (const t of eventTimes) {
+    if (t >= last) continue;
+    set.add(t);
+    set.add(Math.min(last, t + day));
+  }
+  return [...set].filter((t) => t > 0 && t <= last).sort((a, b) => a - b);
+}
+
+/** ATM (at the forward) implied vols at the given expiries. */
+export function atmTermStructure(model: Model, expiries: readonly number[]): (number | null)[] {
+  const spec = modelSpec(model);
+  return expiries.map((t) => volAt(prepareCos(spec, t, DEFAULT_COS_SETTINGS), 0));
+}

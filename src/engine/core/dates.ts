@@ -25,3 +25,9 @@ export function expiryYears(value: string, valuationDate: string): number | stri
   if (trimmed === '' || !Number.isFinite(n)) return 'must be a date YYYY-MM-DD or a year fraction';
   return n;
 }
+
+/** The calendar date `years` (ACT/365, rounded to whole days) after the valuation date. */
+export function dateAfter(valuationDate: string, years: number): string {
+  const v = Date.parse(`${valuationDate}T00:00:00Z`);
+  return new Date(v + Math.round(years * 365) * DAY_MS).toISOString().slice(0, 10);
+}

@@ -9,6 +9,7 @@ export const STRESS_LABELS: Record<StressField, string> = {
   spotShift: 'Spot gap',
   volOfVolScale: 'Vol of vol (scale)',
   v0Scale: 'Initial variance (scale)',
+  eventSizeScale: 'Scheduled moves (scale)',
 };
 
 const FIELDS: Record<string, string> = {
@@ -21,6 +22,8 @@ const FIELDS: Record<string, string> = {
   'market.rateCurve': 'Rate curve',
   'market.dividendCurve': 'Dividend curve',
   'model.kind': 'Model',
+  'model.events': 'Scheduled moves',
+  'model.jumpIntensitySchedule': 'Jump-intensity schedule',
   'grid.expiries': 'Expiries',
   'grid.moneyness': 'Strikes, ln(K/F)',
   runs: 'Saved runs',

@@ -76,6 +76,7 @@ export const stressSchema = z.looseObject({
   spotShift: bounded(-0.99, 10).optional(),
   volOfVolScale: bounded(0, 100).optional(),
   v0Scale: bounded(0, 100).optional(),
+  eventSizeScale: bounded(0, 10).optional(),
 } satisfies Record<StressField, z.ZodType>);
 
 export const MAX_EXPIRY_YEARS = 50;

@@ -8,6 +8,7 @@ export const STRESS_FIELDS = [
   'spotShift',
   'volOfVolScale',
   'v0Scale',
+  'eventSizeScale',
 ] as const;
 
 export type StressField = (typeof STRESS_FIELDS)[number];
@@ -20,4 +21,5 @@ export const NO_STRESS: Stress = {
   spotShift: 0,
   volOfVolScale: 1,
   v0Scale: 1,
+  eventSizeScale: 1,
 };

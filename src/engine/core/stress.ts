@@ -7,6 +7,7 @@ import { modelEntry } from './model-registry';
 import { PARAMETER_SPECS, type ParameterSpec } from './parameters';
 import { NO_STRESS, STRESS_FIELDS, type Stress } from './stress-fields';
 import type { Market, Model } from './types';
+import type { ScheduledMove } from './scheduled-moves';
 import { validateModel, type FieldIssue } from './validate';
 
 export { NO_STRESS, STRESS_FIELDS, type Stress, type StressField } from './stress-fields';
@@ -21,6 +22,15 @@ export interface StressedScenario {
   market: Market;
   model: Model;
   issues: FieldIssue[];
+}
+
+/**
+ * A scheduled move made `f` times as large: a normal move's s.d., a two-point move's up and
+ * down moves (a fall is capped at −99 %).
+ */
+export function scaleMove(e: ScheduledMove, f: number): ScheduledMove {
+  if (e.law === 'normal') return { ...e, stdev: e.stdev * f };
+  return { ...e, up: e.up * f, down: Math.max(-0.99, e.down * f) };
 }
 
 export function applyStress(
@@ -40,6 +50,13 @@ export function applyStress(
       m[key] = rule.op === 'scale' ? x * s[rule.field] : x + s[rule.field];
     }
   if (entry.stressJumps) Object.assign(m, entry.stressJumps(model, s));
+  // the intensity scale acts on the whole schedule; the event scale on every scheduled move
+  if (model.jumpIntensitySchedule && s.jumpIntensityScale !== 1)
+    m.jumpIntensitySchedule = model.jumpIntensitySchedule.map(
+      ([t, l]) => [t, l * s.jumpIntensityScale] as [number, number],
+    );
+  if (model.events && s.eventSizeScale !== 1)
+    m.events = model.events.map((e) => scaleMove(e, s.eventSizeScale));
   const stressed = m as Model;
   const issues: FieldIssue[] = [];
   if (!(stressedMarket.spot > 0)) {

@@ -5,8 +5,26 @@ import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components
 import { useTheme } from '../../../components/theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 
-/** Density of the log-return ln(S_T/F) at one expiry, base against stressed, on a log scale. */
-export function DensityChart({ density, title }: { density: DensityCurve; title: string }) {
+/** A point mass of an up-or-down scheduled move: its log-move and what to call it. */
+export interface PointMass {
+  x: number;
+  label: string;
+}
+
+/**
+ * Density of the log-return ln(S_T/F) at one expiry, base against stressed, on a log scale.
+ * An up-or-down scheduled move is two point masses: they are drawn as spikes at their log-moves,
+ * since the curve alone is smooth only because the diffusion spreads them.
+ */
+export function DensityChart({
+  density,
+  title,
+  pointMasses = [],
+}: {
+  density: DensityCurve;
+  title: string;
+  pointMasses?: PointMass[];
+}) {
   const theme = useTheme();
   const figure = useMemo(() => {
     const t = chartTheme(theme);
@@ -31,6 +49,21 @@ export function DensityChart({ density, title }: { density: DensityCurve; title:
         line: { color: t.stressed, width: 2, dash: 'dash' },
       });
     }
+    if (pointMasses.length > 0) {
+      const ys = density.base.filter((y) => y > 1e-8);
+      const lo = Math.min(...ys);
+      const hi = Math.max(...ys);
+      data.push({
+        type: 'scatter',
+        mode: 'lines',
+        x: pointMasses.flatMap((p) => [p.x, p.x, null]),
+        y: pointMasses.flatMap(() => [lo, hi, null]),
+        text: pointMasses.flatMap((p) => [p.label, p.label, '']),
+        hovertemplate: '%{text}<extra></extra>',
+        name: 'up-or-down move outcomes',
+        line: { color: t.muted, width: 1.5, dash: 'dot' },
+      } as Data);
+    }
     const axis = {
       gridcolor: t.grid,
       zerolinecolor: t.grid,
@@ -47,6 +80,6 @@ export function DensityChart({ density, title }: { density: DensityCurve; title:
       legend: legendRow('below', 0.3),
     };
     return { data, layout };
-  }, [density, title, theme]);
+  }, [density, title, pointMasses, theme]);
   return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }

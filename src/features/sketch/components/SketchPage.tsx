@@ -2,14 +2,27 @@ import { ReadOnlyNote } from './ReadOnlyNote';
 import { useMemo, useState } from 'react';
 import { CautionNote } from '../../../components/CautionNote';
 import { formatTenor } from '../../../components/format';
-import { DensityChart } from './DensityChart';
+import { DensityChart, type PointMass } from './DensityChart';
 import { ExpiryPicker } from './ExpiryPicker';
 import { ModelForm } from './ModelForm';
 import { AXIS_LABEL, SmileChart, type AxisMode } from './SmileChart';
 import { SmileTable } from './SmileTable';
 import { StressPanel } from './StressPanel';
 import { TermStructureChart } from './TermStructureChart';
-import { NO_STRESS, type OptionSpec, type Stress } from '../../../engine/core';
+import { EventsPanel } from './EventsPanel';
+import { EventMovesTable } from './EventMovesTable';
+import { IntensitySchedulePanel } from './IntensitySchedulePanel';
+import {
+  hasJumps,
+  NO_STRESS,
+  parameterValue,
+  touches,
+  twoPointOutcomes,
+  type Model,
+  type OptionSpec,
+  type ScheduledMove,
+  type Stress,
+} from '../../../engine/core';
 import { ScenarioPicker } from './ScenarioPicker';
 import { TargetVols } from './TargetVols';
 import type { TargetVol } from '../../../engine/fit';
@@ -26,6 +39,19 @@ const SAVE_LABEL: Record<SaveState, string> = {
   error: 'Could not save',
 };
 
+/** The outcomes of the up-or-down moves that touch an expiry, for the density chart. */
+function pointMassesAt(events: readonly ScheduledMove[], expiry: number): PointMass[] {
+  return events.flatMap((e, i) => {
+    if (e.law !== 'two-point' || !touches(e.time, expiry)) return [];
+    const { up, down, p } = twoPointOutcomes(e);
+    const name = e.name?.trim() || `Move ${i + 1}`;
+    return [
+      { x: up, label: `${name}: up, chance ${Math.round(100 * p)} %` },
+      { x: down, label: `${name}: down, chance ${Math.round(100 * (1 - p))} %` },
+    ];
+  });
+}
+
 export function SketchPage() {
   const { doc, update, saveState, issues, loadError } = useSketchScenario();
   const [axis, setAxis] = useState<AxisMode>('moneyness');
@@ -40,6 +66,15 @@ export function SketchPage() {
   const request = useMemo(
     () => (valid && doc ? smileRequest(doc, expiries[tableIndex]) : null),
     [valid, doc, expiries, tableIndex],
+  );
+  const events = useMemo(() => doc?.model.events ?? [], [doc]);
+  const pointMasses = useMemo(
+    () => pointMassesAt(events, expiries[tableIndex] ?? 0),
+    [events, expiries, tableIndex],
+  );
+  const eventMarkers = useMemo(
+    () => events.map((e, i) => ({ time: e.time, label: e.name?.trim() || `Move ${i + 1}` })),
+    [events],
   );
   const smiles = useSmiles(request);
   const slice = smiles.data?.base.slices[tableIndex] ?? null;
@@ -75,6 +110,13 @@ export function SketchPage() {
   if (!doc) return <p className="text-muted">Opening the scenario…</p>;
   const stress: Stress = { ...NO_STRESS, ...(doc.stress ?? {}) };
   const targets = (Array.isArray(doc.targets) ? doc.targets : []) as TargetVol[];
+  const eventBaseVol = typeof doc.eventBaseVol === 'number' ? doc.eventBaseVol : undefined;
+  const setModel = (patch: Partial<Record<'events' | 'jumpIntensitySchedule', unknown>>) => {
+    const model: Record<string, unknown> = { ...doc.model, ...patch };
+    for (const key of Object.keys(patch))
+      if (Array.isArray(model[key]) && (model[key] as unknown[]).length === 0) delete model[key];
+    update({ ...doc, model: model as Model });
+  };
 
   return (
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
@@ -100,9 +142,25 @@ export function SketchPage() {
           onMarket={(market) => update({ ...doc, market })}
           onModel={(model) => update({ ...doc, model })}
         />
+        <EventsPanel
+          valuationDate={doc.valuationDate}
+          events={events}
+          errors={errors}
+          onChange={(e: ScheduledMove[]) => setModel({ events: e })}
+        />
+        {hasJumps(doc.model.kind) && (
+          <IntensitySchedulePanel
+            valuationDate={doc.valuationDate}
+            schedule={doc.model.jumpIntensitySchedule ?? []}
+            baseIntensity={parameterValue(doc.model, 'jumpIntensity')}
+            errors={errors}
+            onChange={(sch) => setModel({ jumpIntensitySchedule: sch })}
+          />
+        )}
         <TargetVols doc={doc} targets={targets} onTargets={(t) => update({ ...doc, targets: t })} />
         <StressPanel
           stress={stress}
+          hasEvents={events.length > 0}
           issues={smiles.data?.stressIssues ?? []}
           onChange={(s) => update({ ...doc, stress: s })}
         />
@@ -156,7 +214,24 @@ export function SketchPage() {
                 {smiles.data.elapsedMs.toFixed(1)} ms · engine {smiles.data.engineVersion}
               </p>
             </div>
-            <TermStructureChart base={smiles.data.base} stressed={smiles.data.stressed} />
+            <TermStructureChart
+              base={smiles.data.base}
+              stressed={smiles.data.stressed}
+              term={smiles.data.term}
+              events={eventMarkers}
+            />
+            <EventMovesTable
+              valuationDate={doc.valuationDate}
+              events={events}
+              estimates={smiles.data.eventMoves}
+              expiries={expiries}
+              baseVol={eventBaseVol}
+              onBaseVol={(v) => {
+                const next: Record<string, unknown> = { ...doc, eventBaseVol: v };
+                if (v === undefined) delete next.eventBaseVol;
+                update(next as typeof doc);
+              }}
+            />
             <div className="space-y-2">
               <div className="flex items-center gap-3">
                 <h2 className="text-lg font-semibold">Expiry detail</h2>
@@ -191,6 +266,7 @@ export function SketchPage() {
                 <DensityChart
                   density={smiles.data.density}
                   title={`Density of log-returns at ${formatTenor(expiries[tableIndex])}`}
+                  pointMasses={pointMasses}
                 />
               )}
             </div>

@@ -39,22 +39,25 @@ const CONTROLS: Control[] = [
   },
   { key: 'volOfVolScale', label: 'Vol of vol', min: 0, max: 4, step: 0.05, format: times },
   { key: 'v0Scale', label: 'Initial variance', min: 0, max: 6, step: 0.05, format: times },
+  { key: 'eventSizeScale', label: 'Scheduled moves', min: 0, max: 4, step: 0.05, format: times },
 ];
 
 interface Props {
   stress: Stress;
+  /** the scheduled-move slider shows only when the scenario has moves */
+  hasEvents: boolean;
   onChange: (s: Stress) => void;
   issues: { path: string; message: string }[];
 }
 
-export function StressPanel({ stress, onChange, issues }: Props) {
+export function StressPanel({ stress, hasEvents, onChange, issues }: Props) {
   const baseId = useId();
   return (
     <fieldset className="space-y-3 border-t border-rule pt-3" aria-describedby={`${baseId}-issues`}>
       <legend className="flex w-full items-center justify-between pr-2">
         <span className="text-xs font-semibold uppercase tracking-wide text-muted">Stress</span>
       </legend>
-      {CONTROLS.map((c) => {
+      {CONTROLS.filter((c) => hasEvents || c.key !== 'eventSizeScale').map((c) => {
         const id = `${baseId}-${c.key}`;
         const value = stress[c.key];
         return (

@@ -1,6 +1,7 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SmileSurface } from '../../../engine/analytic';
+import type { AtmTerm } from '../../../workers/engine-api';
 import { chartFrame, chartTheme, panelTitle } from '../../../components/chart-theme';
 import { useTheme } from '../../../components/theme';
 import { formatTenor } from '../../../components/format';
@@ -13,13 +14,25 @@ const TITLES: Record<Measure, string> = {
   bf25: '25Δ butterfly',
 };
 
-/** ATM, RR25 and BF25 against expiry, base and stressed. */
+export interface EventMarker {
+  time: number;
+  label: string;
+}
+
+/**
+ * ATM, RR25 and BF25 against expiry, base and stressed. The ATM panel draws the denser term
+ * curve it is given, with a dotted line at each scheduled move's date.
+ */
 export function TermStructureChart({
   base,
   stressed,
+  term,
+  events,
 }: {
   base: SmileSurface;
   stressed: SmileSurface | null;
+  term: AtmTerm;
+  events: EventMarker[];
 }) {
   const theme = useTheme();
   const figure = useMemo(() => {
@@ -40,28 +53,53 @@ export function TermStructureChart({
       const suffix = i === 0 ? '' : String(i + 1);
       const series = (surface: SmileSurface) =>
         surface.slices.map((s) => (s[m] === null ? null : 100 * (s[m] as number)));
+      const dense = m === 'atm' && term.expiries.length !== base.slices.length;
+      const pct = (v: (number | null)[]) => v.map((a) => (a === null ? null : 100 * a));
       const common = {
         type: 'scatter',
-        mode: 'lines+markers',
-        x,
+        mode: dense ? 'lines' : 'lines+markers',
+        x: dense ? term.expiries.map((e) => e * 365) : x,
         xaxis: `x${suffix}`,
         yaxis: `y${suffix}`,
       };
+      const baseY = dense ? pct(term.base) : series(base);
       data.push({
         ...common,
-        y: series(base),
+        y: baseY,
         name: 'base',
         line: { color: t.base, width: 2 },
         marker: { size: 6 },
       } as Data);
-      if (stressed)
+      const stressedY = stressed
+        ? dense && term.stressed
+          ? pct(term.stressed)
+          : series(stressed)
+        : null;
+      if (stressedY)
         data.push({
           ...common,
-          y: series(stressed),
+          y: stressedY,
           name: 'stressed',
           line: { color: t.stressed, width: 2, dash: 'dash' },
           marker: { size: 6 },
         } as Data);
+      if (m === 'atm' && events.length > 0) {
+        const ys = [...baseY, ...(stressedY ?? [])].filter((v): v is number => v !== null);
+        const lo = Math.min(...ys);
+        const hi = Math.max(...ys);
+        for (const e of events)
+          data.push({
+            type: 'scatter',
+            mode: 'lines',
+            x: [e.time * 365, e.time * 365],
+            y: [lo, hi],
+            xaxis: 'x',
+            yaxis: 'y',
+            name: e.label,
+            hovertemplate: `${e.label}<extra></extra>`,
+            line: { color: t.muted, width: 1, dash: 'dot' },
+          } as Data);
+      }
       const axis = {
         gridcolor: t.grid,
         zerolinecolor: t.muted,
@@ -73,6 +111,6 @@ export function TermStructureChart({
       (layout.annotations as unknown[]).push(panelTitle(suffix, TITLES[m], 1.14));
     });
     return { data, layout: layout as Partial<Layout> };
-  }, [base, stressed, theme]);
+  }, [base, stressed, term, events, theme]);
   return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }

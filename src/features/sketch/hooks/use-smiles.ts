@@ -12,6 +12,7 @@ export function smileRequest(doc: ScenarioDocument, densityExpiry: number): Smil
     expiries: doc.grid.expiries,
     moneyness: doc.grid.moneyness,
     densityExpiry,
+    ...(typeof doc.eventBaseVol === 'number' ? { eventBaseVol: doc.eventBaseVol } : {}),
   };
 }
 
