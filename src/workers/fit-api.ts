@@ -22,7 +22,10 @@ export interface FitApi {
   calibrate(request: CalibrationRequest, progress: Progress): CalibrationResult;
   solveTargets(request: TargetRequest, progress: Progress): TargetSolution;
   verdict(
-    request: Omit<CalibrationRequest, 'model'> & { hestonGuess: Model & { kind: 'heston' } },
+    request: Omit<CalibrationRequest, 'model'> & {
+      hestonGuess: Model & { kind: 'heston' };
+      moveTime?: number;
+    },
     progress: Progress,
   ): JumpsVerdict;
 }

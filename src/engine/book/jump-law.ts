@@ -1,11 +1,11 @@
 /**
  * How likely an instant gap of each ladder size is over a horizon: the probability of at least
- * one jump, 1 − e^{−λh}, times the chance that a jump's size falls in the ladder point's bin
+ * one jump, 1 − e^{−Λ(h)} (Λ(h) = λh at a constant intensity), times the chance that a jump's size falls in the ladder point's bin
  * (single-jump approximation, fine for the day and week horizons it is drawn for).
  */
 import { normCdf } from '../analytic/normal';
-import { jumpIntensityOf, modelSpec } from '../core/models';
-import type { JumpLaw } from '../core/model-spec';
+import { modelSpec } from '../core/models';
+import { expectedJumps, type JumpLaw } from '../core/model-spec';
 import type { Model } from '../core/types';
 
 function logJumpCdf(jumps: JumpLaw, y: number): number {
@@ -27,10 +27,12 @@ export function jumpMoveProbabilities(
   moves: readonly number[],
   horizonYears: number,
 ): number[] {
-  const lambda = jumpIntensityOf(model);
-  const jumps = modelSpec(model).jumps;
-  if (lambda === 0 || moves.length === 0) return moves.map(() => 0);
-  const atLeastOne = -Math.expm1(-lambda * horizonYears);
+  const spec = modelSpec(model);
+  const jumps = spec.jumps;
+  // the expected count over the horizon honours an intensity schedule
+  const count = expectedJumps(spec, horizonYears);
+  if (count === 0 || moves.length === 0) return moves.map(() => 0);
+  const atLeastOne = -Math.expm1(-count);
   return moves.map((m, i) => {
     const lo = i === 0 ? -0.9999 : 0.5 * (moves[i - 1] + m);
     const hi =

@@ -33,6 +33,16 @@ export function scaleMove(e: ScheduledMove, f: number): ScheduledMove {
   return { ...e, up: e.up * f, down: Math.max(-0.99, e.down * f) };
 }
 
+/** The scenario's variants with every scheduled move made bigger and smaller, for a set. */
+export const MOVE_VARIANT_SCALES = [1.5, 0.5] as const;
+
+/** The model with every scheduled move `f` times as large. */
+export function withScaledMoves(model: Model, f: number): Model {
+  return model.events
+    ? ({ ...model, events: model.events.map((e) => scaleMove(e, f)) } as Model)
+    : model;
+}
+
 export function applyStress(
   market: Market,
   model: Model,

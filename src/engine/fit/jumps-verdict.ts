@@ -2,6 +2,8 @@
  * "Are the jumps worth it?": Heston and Bates fitted to the same quotes, RMSE by expiry bucket
  * (under 1 month, 1–6 months, beyond), and information criteria that charge for parameters:
  * AIC = n ln(SSE/n) + 2k (Akaike 1974) and BIC = n ln(SSE/n) + k ln n (Schwarz 1978).
+ * Optionally a third candidate: Heston with one scheduled normal move on a given date, its size
+ * fitted (one parameter against the jumps' three), for a short end shaped by a known date.
  */
 import { calibrate, type CalibrationRequest, type CalibrationResult } from './calibrate';
 import type { Model } from '../core/types';
@@ -10,15 +12,19 @@ export interface BucketRmse {
   bucket: 'under 1M' | '1M–6M' | 'over 6M';
   heston: number | null;
   bates: number | null;
+  /** Heston with the scheduled move, when it was tried */
+  move?: number | null;
   count: number;
 }
 
 export interface JumpsVerdict {
   heston: CalibrationResult;
   bates: CalibrationResult;
+  /** Heston plus one scheduled normal move, when a move date was given */
+  move?: CalibrationResult;
   buckets: BucketRmse[];
-  aic: { heston: number; bates: number };
-  bic: { heston: number; bates: number };
+  aic: { heston: number; bates: number; move?: number };
+  bic: { heston: number; bates: number; move?: number };
   /** BIC falls by more than 10 with the jumps: strong evidence for them (Kass & Raftery 1995) */
   jumpsEarnTheirKeep: boolean;
   summary: string;
@@ -53,11 +59,15 @@ function criteria(r: CalibrationResult, k: number) {
 export function jumpsVerdict(
   req: Omit<CalibrationRequest, 'model'> & {
     hestonGuess: Model & { kind: 'heston' };
+    /** try Heston with one scheduled normal move at this time (years) too */
+    moveTime?: number;
     progress?: (f: number) => boolean | void;
   },
 ): JumpsVerdict {
   const g = req.hestonGuess;
-  const heston = calibrate({ ...req, model: g }, (f) => req.progress?.(0.4 * f));
+  const withMove = req.moveTime !== undefined;
+  const share = withMove ? [0.3, 0.45, 0.25] : [0.4, 0.6, 0];
+  const heston = calibrate({ ...req, model: g }, (f) => req.progress?.(share[0] * f));
   const batesGuess: Model = {
     ...(heston.model as Model & { kind: 'heston' }),
     kind: 'bates',
@@ -65,7 +75,18 @@ export function jumpsVerdict(
     jumpMean: -0.08,
     jumpStdev: 0.1,
   };
-  const bates = calibrate({ ...req, model: batesGuess }, (f) => req.progress?.(0.4 + 0.6 * f));
+  const bates = calibrate({ ...req, model: batesGuess }, (f) =>
+    req.progress?.(share[0] + share[1] * f),
+  );
+  let move: CalibrationResult | undefined;
+  if (withMove) {
+    const events = [...(heston.model.events ?? [])];
+    events.push({ time: req.moveTime!, law: 'normal', stdev: 0.03, name: 'fitted move' });
+    move = calibrate(
+      { ...req, model: { ...heston.model, events } as Model, fitEventSizes: [events.length - 1] },
+      (f) => req.progress?.(share[0] + share[1] + share[2] * f),
+    );
+  }
   const kH =
     5 -
     (req.fixed?.filter((p) => ['v0', 'kappa', 'theta', 'volOfVol', 'rho'].includes(p)).length ?? 0);
@@ -75,23 +96,33 @@ export function jumpsVerdict(
     (req.fixed?.filter((p) => ['jumpIntensity', 'jumpMean', 'jumpStdev'].includes(p)).length ?? 0);
   const cH = criteria(heston, kH);
   const cB = criteria(bates, kB);
+  const cM = move ? criteria(move, kH + 1) : undefined;
   const buckets = BUCKETS.map(([bucket, lo, hi]) => {
     const h = bucketRmse(heston, lo, hi);
     const b = bucketRmse(bates, lo, hi);
-    return { bucket, heston: h.rmse, bates: b.rmse, count: h.count };
+    const row: BucketRmse = { bucket, heston: h.rmse, bates: b.rmse, count: h.count };
+    if (move) row.move = bucketRmse(move, lo, hi).rmse;
+    return row;
   });
   const earn = cH.bic - cB.bic > 10;
   const short = buckets[0];
   const summary = earn
     ? `The jumps earn their three parameters: BIC falls by ${(cH.bic - cB.bic).toFixed(1)}${short.count ? `, and the under-1M RMSE goes from ${short.heston!.toFixed(2)} to ${short.bates!.toFixed(2)} vol points` : ''}.`
     : `Heston is enough here: the jumps lower BIC by only ${(cH.bic - cB.bic).toFixed(1)} (more than 10 would be strong evidence).`;
+  const versusMove =
+    cM === undefined
+      ? ''
+      : cM.bic < cB.bic
+        ? ` One scheduled move (${(100 * (move!.model.events!.at(-1) as { stdev: number }).stdev).toFixed(2)} % s.d.) explains the quotes better than the jumps: BIC ${cM.bic.toFixed(1)} against ${cB.bic.toFixed(1)}.`
+        : ` The jumps beat one scheduled move: BIC ${cB.bic.toFixed(1)} against ${cM.bic.toFixed(1)}.`;
   return {
     heston,
     bates,
+    ...(move ? { move } : {}),
     buckets,
-    aic: { heston: cH.aic, bates: cB.aic },
-    bic: { heston: cH.bic, bates: cB.bic },
+    aic: { heston: cH.aic, bates: cB.aic, ...(cM ? { move: cM.aic } : {}) },
+    bic: { heston: cH.bic, bates: cB.bic, ...(cM ? { move: cM.bic } : {}) },
     jumpsEarnTheirKeep: earn,
-    summary,
+    summary: summary + versusMove,
   };
 }

@@ -74,6 +74,7 @@ export function FitPage() {
       startFrom: source.document.model,
       quotes,
       settings: chosen,
+      valuationDate: source.document.valuationDate,
     });
   };
 
@@ -122,6 +123,7 @@ export function FitPage() {
           </ScenarioSelect>
           <FitSettingsForm
             disabled={quotes.length === 0 || progress !== null}
+            eventCount={source.document.model.events?.length ?? 0}
             onFit={run('fit')}
             onVerdict={run('verdict')}
           />

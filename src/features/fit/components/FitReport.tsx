@@ -156,7 +156,8 @@ export function ResidualTable({ result }: { result: CalibrationResult }) {
 }
 
 export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
-  const f = (v: number | null) => (v === null ? '—' : v.toFixed(3));
+  const f = (v: number | null | undefined) => (v === null || v === undefined ? '—' : v.toFixed(3));
+  const move = verdict.move;
   return (
     <div className="space-y-2 rounded border border-rule p-3" data-testid="jumps-verdict">
       <h3 className="font-semibold">Are the jumps worth it?</h3>
@@ -167,6 +168,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             <th className="pr-6 text-left font-normal">RMSE (vol pts)</th>
             <th className="px-3 font-normal">Heston</th>
             <th className="px-3 font-normal">Bates</th>
+            {move && <th className="px-3 font-normal">Heston + one move</th>}
             <th className="px-3 font-normal">quotes</th>
           </tr>
         </thead>
@@ -178,6 +180,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
               </th>
               <td className="px-3 text-right">{f(b.heston)}</td>
               <td className="px-3 text-right">{f(b.bates)}</td>
+              {move && <td className="px-3 text-right">{f(b.move)}</td>}
               <td className="px-3 text-right">{b.count}</td>
             </tr>
           ))}
@@ -187,6 +190,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             </th>
             <td className="px-3 text-right">{f(verdict.heston.rmseVolPoints)}</td>
             <td className="px-3 text-right">{f(verdict.bates.rmseVolPoints)}</td>
+            {move && <td className="px-3 text-right">{f(move.rmseVolPoints)}</td>}
             <td />
           </tr>
           <tr>
@@ -195,6 +199,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             </th>
             <td className="px-3 text-right">{verdict.aic.heston.toFixed(1)}</td>
             <td className="px-3 text-right">{verdict.aic.bates.toFixed(1)}</td>
+            {move && <td className="px-3 text-right">{verdict.aic.move?.toFixed(1)}</td>}
             <td />
           </tr>
           <tr>
@@ -203,13 +208,14 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             </th>
             <td className="px-3 text-right">{verdict.bic.heston.toFixed(1)}</td>
             <td className="px-3 text-right">{verdict.bic.bates.toFixed(1)}</td>
+            {move && <td className="px-3 text-right">{verdict.bic.move?.toFixed(1)}</td>}
             <td />
           </tr>
         </tbody>
       </table>
       <p className="text-xs text-muted">
-        AIC and BIC charge each model for its parameters (5 for Heston, 8 for Bates); lower is
-        better.
+        AIC and BIC charge each model for its parameters (5 for Heston, 8 for Bates
+        {move ? ', 6 for Heston with one move' : ''}); lower is better.
       </p>
     </div>
   );

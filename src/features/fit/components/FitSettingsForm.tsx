@@ -11,6 +11,8 @@ import {
 
 interface Props {
   disabled: boolean;
+  /** how many scheduled moves the source scenario has */
+  eventCount: number;
   onFit: (settings: FitSettings) => void;
   onVerdict: (settings: FitSettings) => void;
 }
@@ -18,8 +20,13 @@ interface Props {
 const heading = 'text-xs font-semibold uppercase tracking-wide text-muted';
 const select = 'rounded border border-rule bg-panel px-2 py-1.5';
 
-export function FitSettingsForm({ disabled, onFit, onVerdict }: Props) {
-  const { register, handleSubmit, watch } = useForm<FitSettings>({
+export function FitSettingsForm({ disabled, eventCount, onFit, onVerdict }: Props) {
+  const {
+    register,
+    handleSubmit,
+    watch,
+    formState: { errors },
+  } = useForm<FitSettings>({
     resolver: zodResolver(fitSettingsSchema),
     defaultValues: DEFAULT_FIT_SETTINGS,
   });
@@ -46,12 +53,32 @@ export function FitSettingsForm({ disabled, onFit, onVerdict }: Props) {
           ))}
         </div>
       </fieldset>
+      {eventCount > 0 && (
+        <label className="flex items-center gap-1 text-sm">
+          <input type="checkbox" {...register('fitEventSizes')} /> Fit the sizes of the
+          scenario&apos;s {eventCount} scheduled move{eventCount > 1 ? 's' : ''} too
+        </label>
+      )}
       <label className="flex flex-col gap-1 text-sm">
         <span className={heading}>Weights</span>
         <select className={select} {...register('weights')}>
           <option value="uniform">uniform (bid-ask spread if given)</option>
           <option value="vega">vega (the wings count less)</option>
         </select>
+      </label>
+      <label className="flex flex-col gap-1 text-sm">
+        <span className={heading}>Comparison: one scheduled move on</span>
+        <input
+          type="date"
+          aria-label="Scheduled move date for the comparison"
+          className={select}
+          {...register('moveDate')}
+        />
+        <span className="text-xs text-muted">
+          {errors.moveDate
+            ? 'must be a real date'
+            : 'optional: Heston with one dated move of fitted size, beside Heston and Bates'}
+        </span>
       </label>
       <div className="flex flex-wrap gap-2">
         <button

@@ -1,6 +1,6 @@
 /** One calibration job of the Fit page: a fit or the jumps verdict, with progress and cancel. */
 import { useCallback, useRef, useState } from 'react';
-import { parametersOf, type Market, type Model } from '../../../engine/core';
+import { expiryYears, parametersOf, type Market, type Model } from '../../../engine/core';
 import {
   completeGuess,
   type CalibrationResult,
@@ -19,6 +19,8 @@ export interface FitInputs {
   startFrom: Model;
   quotes: VolQuote[];
   settings: FitSettings;
+  /** the source scenario's valuation date, for the comparison's move date */
+  valuationDate: string;
 }
 
 export function useFitJob() {
@@ -28,7 +30,9 @@ export function useFitJob() {
   const current = useRef<AbortController | null>(null);
 
   const start = useCallback(async (what: FitOutcome['kind'], inputs: FitInputs) => {
-    const { market, startFrom, quotes, settings } = inputs;
+    const { market, startFrom, quotes, settings, valuationDate } = inputs;
+    const eventCount = startFrom.events?.length ?? 0;
+    const moveTime = settings.moveDate ? expiryYears(settings.moveDate, valuationDate) : null;
     setError(null);
     setOutcome(null);
     setProgress(0);
@@ -39,7 +43,15 @@ export function useFitJob() {
       quotes,
       fixed: settings.fixed.filter((f) => (parametersOf(settings.kind) as string[]).includes(f)),
       weights: settings.weights,
+      ...(settings.fitEventSizes && eventCount > 0
+        ? { fitEventSizes: Array.from({ length: eventCount }, (_, i) => i) }
+        : {}),
     };
+    if (typeof moveTime === 'number' && !(moveTime > 0)) {
+      setError('The comparison move must be dated after the valuation date.');
+      setProgress(null);
+      return;
+    }
     try {
       if (what === 'fit') {
         const model = completeGuess(settings.kind, startFrom);
@@ -55,7 +67,11 @@ export function useFitJob() {
           { kind: 'heston' }
         >;
         const verdict = await runFit(
-          (api, p) => api.verdict({ ...base, hestonGuess }, p),
+          (api, p) =>
+            api.verdict(
+              { ...base, hestonGuess, ...(typeof moveTime === 'number' ? { moveTime } : {}) },
+              p,
+            ),
           setProgress,
           controller.signal,
         );

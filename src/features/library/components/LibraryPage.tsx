@@ -41,6 +41,7 @@ export function LibraryPage() {
     remove: library.remove,
     putInSet: library.putInSet,
     fork: library.fork,
+    moveVariants: library.moveVariants,
     resolve: library.resolve,
     exportFile: (s) => download(scenarioFileName(s.name), scenarioFileText([s.document])),
     restore: library.restore,

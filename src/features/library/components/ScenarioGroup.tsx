@@ -12,6 +12,7 @@ export interface RowActions {
   remove: (s: StoredScenario) => void;
   putInSet: (s: StoredScenario, setId: string) => void;
   fork: (s: StoredScenario) => void;
+  moveVariants: (s: StoredScenario) => void;
   resolve: (s: StoredScenario, how: 'mine' | 'theirs' | 'both') => void;
   exportFile: (s: StoredScenario) => void;
   restore: (s: StoredScenario, doc: ScenarioDocument) => void;
@@ -150,6 +151,16 @@ function Row({
           {s.setId !== null && (
             <button type="button" className={link} onClick={() => actions.fork(s)}>
               Fork
+            </button>
+          )}
+          {(s.document.model.events?.length ?? 0) > 0 && (
+            <button
+              type="button"
+              className={link}
+              title="Copies with every scheduled move 1.5× and 0.5× as large, in the same set"
+              onClick={() => actions.moveVariants(s)}
+            >
+              Move variants
             </button>
           )}
           <button type="button" className={link} onClick={() => actions.exportFile(s)}>

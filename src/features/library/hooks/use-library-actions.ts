@@ -6,7 +6,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useState } from 'react';
 import { deskApi } from '../../../api/desks';
-import type { ScenarioDocument } from '../../../engine/core';
+import { MOVE_VARIANT_SCALES, withScaledMoves, type ScenarioDocument } from '../../../engine/core';
 import { appDb, type RemoteSet, type StoredScenario } from '../../../store/db';
 import { useSaveScenario } from '../../../store/hooks';
 import { parseScenarioFile } from '../../../store/scenario-files';
@@ -75,6 +75,18 @@ export function useLibraryActions(opts: {
       void run(
         () => putInSet(appDb(), s.id, setId),
         `"${s.name}" will be shared when this device syncs.`,
+      ),
+    /** "moves bigger" and "moves smaller" copies beside a scenario with scheduled moves */
+    moveVariants: (s: StoredScenario) =>
+      void run(
+        async () => {
+          const target = s.setId && writableSets.some((w) => w.id === s.setId) ? s.setId : null;
+          for (const f of MOVE_VARIANT_SCALES) {
+            const doc = { ...s.document, model: withScaledMoves(s.document.model, f) };
+            await saveCopy(appDb(), doc, target, `${s.name} (moves ×${f})`);
+          }
+        },
+        `Added "moves ×${MOVE_VARIANT_SCALES.join('" and "moves ×')}" beside "${s.name}".`,
       ),
     fork: (s: StoredScenario) =>
       void run(async () => {

@@ -5,6 +5,7 @@ import type { ReplayRequest, ReplayResult, PnlHistogram } from '../../../engine/
 import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
+import { hasMoves } from './ReplayStats';
 
 /** Short enough for a legend under a half-width chart. */
 export const legendName = (r: ReplayRequest, k: number) =>
@@ -52,23 +53,37 @@ export function ReplayCharts({
           marker: { color: colours[k], opacity: 0.55 },
         }) as Data,
     );
-    const parts = [
-      'mean,<br>no jump',
-      'mean,<br>jump',
-      'worst 1 %,<br>no jump',
-      'worst 1 %,<br>jump',
-    ];
+    const moves = hasMoves(requests);
+    const parts = moves
+      ? [
+          'mean,<br>other',
+          'mean,<br>jump',
+          'mean,<br>move',
+          'worst 1 %,<br>other',
+          'worst 1 %,<br>jump',
+          'worst 1 %,<br>move',
+        ]
+      : ['mean,<br>no jump', 'mean,<br>jump', 'worst 1 %,<br>no jump', 'worst 1 %,<br>jump'];
     const attribution: Data[] = results.map(
       (r, k) =>
         ({
           type: 'bar',
           x: parts,
-          y: [
-            r.attribution.diffusion,
-            r.attribution.jumps,
-            r.attribution.tailDiffusion,
-            r.attribution.tailJumps,
-          ],
+          y: moves
+            ? [
+                r.attribution.diffusion,
+                r.attribution.jumps,
+                r.attribution.events ?? 0,
+                r.attribution.tailDiffusion,
+                r.attribution.tailJumps,
+                r.attribution.tailEvents ?? 0,
+              ]
+            : [
+                r.attribution.diffusion,
+                r.attribution.jumps,
+                r.attribution.tailDiffusion,
+                r.attribution.tailJumps,
+              ],
           name: legendName(requests[k], k),
           marker: { color: colours[k] },
         }) as Data,
@@ -87,7 +102,11 @@ export function ReplayCharts({
       attribution: {
         data: attribution,
         layout: {
-          ...layout('P&L booked on steps with and without a jump'),
+          ...layout(
+            moves
+              ? 'P&L booked on steps with a jump, with a scheduled move, and the rest'
+              : 'P&L booked on steps with and without a jump',
+          ),
           yaxis: { ...axis(), title: { text: 'P&L per path' } },
           barmode: 'group',
         },

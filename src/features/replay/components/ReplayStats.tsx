@@ -3,7 +3,9 @@ import type { ReplayRequest, ReplayResult } from '../../../engine/replay';
 import { formatNumber } from '../../../components/format';
 import { METHOD_LABELS } from './HedgeFields';
 
-const ROWS: [string, (r: ReplayResult) => number][] = [
+type Row = [string, (r: ReplayResult) => number];
+
+const ROWS: Row[] = [
   ['mean P&L', (r) => r.pnl.mean],
   ['standard deviation', (r) => r.pnl.stdev],
   ['99 % VaR (loss)', (r) => r.pnl.var99],
@@ -14,6 +16,20 @@ const ROWS: [string, (r: ReplayResult) => number][] = [
   ['worst 1 %: on steps without a jump', (r) => r.attribution.tailDiffusion],
   ['worst 1 %: on steps with a jump', (r) => r.attribution.tailJumps],
 ];
+
+/** With scheduled moves, the steps they land on are a part of their own. */
+const ROWS_WITH_MOVES: Row[] = [
+  ...ROWS.slice(0, 5),
+  ['mean P&L on other steps', (r) => r.attribution.diffusion],
+  ['mean P&L on steps with a jump', (r) => r.attribution.jumps],
+  ['mean P&L on scheduled-move steps', (r) => r.attribution.events ?? 0],
+  ['worst 1 %: on other steps', (r) => r.attribution.tailDiffusion],
+  ['worst 1 %: on steps with a jump', (r) => r.attribution.tailJumps],
+  ['worst 1 %: on scheduled-move steps', (r) => r.attribution.tailEvents ?? 0],
+];
+
+export const hasMoves = (requests: readonly ReplayRequest[]) =>
+  requests.some((r) => (r.model.events?.length ?? 0) > 0);
 
 export const hedgeName = (r: ReplayRequest) =>
   `${METHOD_LABELS[r.hedge.method]}${r.hedge.method === 'none' ? '' : `, ${r.hedge.rebalancesPerDay}× a day`}${r.hedge.costBps ? `, ${r.hedge.costBps} bp` : ''}${r.hedge.hedgeVol ? ` at ${(100 * r.hedge.hedgeVol).toFixed(1)} %` : ''}`;
@@ -38,7 +54,7 @@ export function ReplayStats({
         </tr>
       </thead>
       <tbody>
-        {ROWS.map(([label, pick]) => (
+        {(hasMoves(requests) ? ROWS_WITH_MOVES : ROWS).map(([label, pick]) => (
           <tr key={label} className="border-t border-rule/60">
             <td className="px-3 text-left">{label}</td>
             {results.map((r, i) => (
