@@ -6,6 +6,7 @@ import { benchBook } from './book';
 import { benchCalibration } from './calibration';
 import { benchMonteCarlo } from './monte-carlo';
 import { benchReplay } from './replay';
+import { benchScheduledMoves } from './scheduled-moves';
 import { benchSurface } from './surface';
 import { benchSync } from './sync';
 
@@ -14,6 +15,9 @@ console.log(
   'Pricing surface (COS + implied vols) vs @quantlib/ql analytic engines; QuantLib time is pricing only.',
 );
 console.table(benchSurface());
+
+console.log('\nScheduled moves and a jump-intensity schedule: the same work with and without.');
+console.table(benchScheduledMoves());
 
 console.log('\nBook revaluation with the gap ladder, one thread (as in one worker).');
 console.table(benchBook());
