@@ -6,6 +6,7 @@
  */
 import { expectedJumps, type Diffusion, type JumpLaw, type ModelSpec } from '../core/model-spec';
 import { touches, twoPointOutcomes, type ScheduledMove } from '../core/scheduled-moves';
+import { addPriceVarianceJumps, intensitySegments } from './svcj';
 
 export { modelSpec } from '../core/models';
 export type { Diffusion, JumpLaw, ModelSpec } from '../core/model-spec';
@@ -41,6 +42,10 @@ export function logCharacteristic(
   if (jl.type === 'lognormal' && lt > 0) addLognormalJumps(jl, lt, wr, wi, outRe, outIm, count);
   if (jl.type === 'double-exponential' && lt > 0) {
     addDoubleExponentialJumps(jl, lt, wr, wi, outRe, outIm, count);
+  }
+  if (jl.type === 'price-variance' && lt > 0 && d.type === 'heston') {
+    const segments = intensitySegments(jl.jumpIntensity, spec.intensitySchedule, T);
+    addPriceVarianceJumps(d, jl, segments, lt, wr, wi, outRe, outIm, count);
   }
   if (spec.events) {
     for (const e of spec.events)

@@ -62,6 +62,13 @@ function jumpExtent(spec: ModelSpec, T: number): number {
   const j = spec.jumps;
   if (j.type === 'none' || !(expectedJumps(spec, T) > 0)) return 0;
   if (j.type === 'lognormal') return Math.abs(j.jumpMean) + 8.5 * j.jumpStdev;
+  // the exponential variance jump reaches ln S through ρJ: 37 of its means, as for Kou's tails
+  if (j.type === 'price-variance')
+    return (
+      Math.abs(j.jumpMean) +
+      8.5 * j.jumpStdev +
+      37 * Math.abs(j.jumpCorrelation) * j.varianceJumpMean
+    );
   return 37 * Math.max(j.upMean, j.downMean);
 }
 

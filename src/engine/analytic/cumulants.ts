@@ -19,7 +19,13 @@ export function diffusionVariance(spec: ModelSpec, T: number): number {
   if (d.type === 'constant') return d.variance * T;
   const kt = d.kappa * T;
   const decay = kt > 1e-8 ? -Math.expm1(-kt) / d.kappa : T;
-  return d.theta * T + (d.v0 - d.theta) * decay;
+  // variance jumps lift the long-run level to θ + λ̄μV/κ (λ̄ the average intensity to T)
+  const j = spec.jumps;
+  const theta =
+    j.type === 'price-variance'
+      ? d.theta + (expectedJumps(spec, T) / T) * (j.varianceJumpMean / d.kappa)
+      : d.theta;
+  return theta * T + (d.v0 - theta) * decay;
 }
 
 /** Variance of the scheduled moves that touch an expiry T. */
@@ -38,6 +44,11 @@ export function roughVariance(spec: ModelSpec, T: number): number {
   const j = spec.jumps;
   const lt = expectedJumps(spec, T);
   if (j.type === 'lognormal') v += lt * (j.jumpMean * j.jumpMean + j.jumpStdev * j.jumpStdev);
+  if (j.type === 'price-variance') {
+    // E[Z_S²] = σS² + (μS + ρJμV)² + ρJ²μV²
+    const m = j.jumpMean + j.jumpCorrelation * j.varianceJumpMean;
+    v += lt * (j.jumpStdev ** 2 + m * m + (j.jumpCorrelation * j.varianceJumpMean) ** 2);
+  }
   if (j.type === 'double-exponential') {
     v += lt * (2 * j.upProbability * j.upMean ** 2 + 2 * (1 - j.upProbability) * j.downMean ** 2);
   }
@@ -50,7 +61,7 @@ export function roughVariance(spec: ModelSpec, T: number): number {
  * 1 − g e^{−dT} stays positive); d² is concave in w, so checking the ends of [−2h, 2h]
  * covers the interval.
  */
-function momentsFinite(spec: ModelSpec, w: number): boolean {
+function momentsFinite(spec: ModelSpec, T: number, w: number): boolean {
   const d = spec.diffusion;
   if (d.type === 'heston') {
     const beta = d.kappa - d.rho * d.volOfVol * w;
@@ -59,6 +70,17 @@ function momentsFinite(spec: ModelSpec, w: number): boolean {
   const j = spec.jumps;
   if (j.type === 'double-exponential') {
     if (w * j.upMean >= 1 || -w * j.downMean >= 1) return false;
+  }
+  if (j.type === 'price-variance' && d.type === 'heston') {
+    // E[e^{(D + wρJ)Z_V}] needs (D + wρJ)μV < 1; D(w, τ) is monotone in τ for real w, so the
+    // largest is at τ = T: D is ln φ of the variance part alone with v0 = 1 and θ = 0
+    const D = logCharacteristicAt(
+      { diffusion: { ...d, v0: 1, theta: 0 }, jumps: { type: 'none' } },
+      T,
+      w,
+      0,
+    )[0];
+    if (!((Math.max(D, 0) + w * j.jumpCorrelation) * j.varianceJumpMean < 1)) return false;
   }
   return true;
 }
@@ -73,7 +95,7 @@ export function cumulants(spec: ModelSpec, T: number): Cumulants {
   }
   h = Math.min(h, 0.2); // stay well inside (−∞, 1] where E[S_T^w] is finite for any martingale
   for (let attempt = 0; attempt < 12; attempt++) {
-    if (!momentsFinite(spec, 2 * h) || !momentsFinite(spec, -2 * h)) {
+    if (!momentsFinite(spec, T, 2 * h) || !momentsFinite(spec, T, -2 * h)) {
       h *= 0.5;
       continue;
     }

@@ -13,12 +13,45 @@ function logJumpCdf(jumps: JumpLaw, y: number): number {
     if (jumps.jumpStdev === 0) return y >= jumps.jumpMean ? 1 : 0;
     return normCdf((y - jumps.jumpMean) / jumps.jumpStdev);
   }
+  if (jumps.type === 'price-variance') return priceVarianceCdf(jumps, y);
   if (jumps.type === 'double-exponential') {
     const { upProbability: p, upMean: m1, downMean: m2 } = jumps;
     if (y < 0) return m2 > 0 ? (1 - p) * Math.exp(y / m2) : 0;
     return 1 - (m1 > 0 ? p * Math.exp(-y / m1) : 0);
   }
   return y >= 0 ? 1 : 0;
+}
+
+/**
+ * CDF of the SVCJ log-jump Z_S = μS + σS·N + ρJ·Z_V, Z_V exponential with mean μV: a normal
+ * plus (ρJ > 0) or minus (ρJ < 0) an exponential of rate c = 1/(|ρJ|μV), the exponentially
+ * modified Gaussian (common practice):
+ *   plus:  Φ(x) − e^{−c(y−μ) + c²σ²/2} Φ(x − cσ),   minus: Φ(x) + e^{c(y−μ) + c²σ²/2} Φ(−x − cσ),
+ * with x = (y − μ)/σ; products formed in logs so neither factor overflows.
+ */
+function priceVarianceCdf(j: Extract<JumpLaw, { type: 'price-variance' }>, y: number): number {
+  const mu = j.jumpMean;
+  const sd = j.jumpStdev;
+  const scale = Math.abs(j.jumpCorrelation) * j.varianceJumpMean;
+  if (scale === 0) return sd === 0 ? (y >= mu ? 1 : 0) : normCdf((y - mu) / sd);
+  const c = 1 / scale;
+  if (sd === 0) {
+    // a shifted exponential, up or down
+    const t = (y - mu) * Math.sign(j.jumpCorrelation);
+    const tail = t <= 0 ? 1 : Math.exp(-c * t);
+    return j.jumpCorrelation > 0 ? 1 - tail : tail;
+  }
+  const x = (y - mu) / sd;
+  const term = (a: number, b: number) => {
+    const p = normCdf(b);
+    return p > 0 ? Math.exp(a + Math.log(p)) : 0;
+  };
+  const half = 0.5 * c * c * sd * sd;
+  const value =
+    j.jumpCorrelation > 0
+      ? normCdf(x) - term(-c * (y - mu) + half, x - c * sd)
+      : normCdf(x) + term(c * (y - mu) + half, -x - c * sd);
+  return Math.min(1, Math.max(0, value));
 }
 
 /** Probability, per horizon, that a jump lands in the bin around each move (moves ascending). */

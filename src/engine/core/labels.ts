@@ -10,6 +10,8 @@ export const STRESS_LABELS: Record<StressField, string> = {
   volOfVolScale: 'Vol of vol (scale)',
   v0Scale: 'Initial variance (scale)',
   eventSizeScale: 'Scheduled moves (scale)',
+  varianceJumpScale: 'Variance jump (scale)',
+  jumpCorrelationShift: 'Jump correlation (shift)',
 };
 
 const FIELDS: Record<string, string> = {

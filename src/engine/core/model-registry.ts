@@ -10,6 +10,7 @@ import {
   doubleExponentialJumps,
   hestonDiffusion,
   lognormalJumps,
+  priceVarianceJumps,
   NO_JUMPS,
   type ModelSpec,
   type ParameterValues,
@@ -37,6 +38,8 @@ export interface ModelEntry {
    * returns the parameters it changes.
    */
   stressJumps?: (p: ParameterValues, s: Stress) => Record<string, number>;
+  /** a condition across parameters that their domains cannot say: the bad field and why */
+  check?: (p: ParameterValues) => { path: string; message: string } | null;
 }
 
 const HESTON = ['v0', 'kappa', 'theta', 'volOfVol', 'rho'] as const;
@@ -98,6 +101,27 @@ export const MODEL_REGISTRY = {
       if (shift > 0 && up > 0) upMean += shift / up;
       return { upMean: upMean * s.jumpStdevScale, downMean: downMean * s.jumpStdevScale };
     },
+  },
+  svcj: {
+    label: 'SVCJ (Heston + jumps in price and variance)',
+    shortLabel: 'SVCJ',
+    groups: [
+      variance,
+      {
+        role: 'jumps',
+        title: 'Jumps (price and variance together)',
+        parameters: [...LOGNORMAL_JUMPS, 'varianceJumpMean', 'jumpCorrelation'],
+      },
+    ],
+    spec: (p) => ({ diffusion: hestonDiffusion(p), jumps: priceVarianceJumps(p) }),
+    // E[e^{Z_S}] = e^{μS + σS²/2}/(1 − ρJ·μV) is finite only while ρJ·μV < 1
+    check: (p) =>
+      (p.jumpCorrelation as number) * (p.varianceJumpMean as number) < 1
+        ? null
+        : {
+            path: 'jumpCorrelation',
+            message: 'jump correlation × mean variance jump must be below 1',
+          },
   },
 } as const satisfies Record<string, ModelEntry>;
 

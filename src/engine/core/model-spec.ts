@@ -20,6 +20,18 @@ export type JumpLaw =
   | { type: 'none' }
   | { type: 'lognormal'; jumpIntensity: number; jumpMean: number; jumpStdev: number }
   | {
+      /**
+       * Duffie, Pan & Singleton (2000) contemporaneous jumps: Z_V ~ Exp(mean varianceJumpMean)
+       * added to the variance, Z_S | Z_V ~ N(jumpMean + jumpCorrelation·Z_V, jumpStdev²) to ln S
+       */
+      type: 'price-variance';
+      jumpIntensity: number;
+      jumpMean: number;
+      jumpStdev: number;
+      varianceJumpMean: number;
+      jumpCorrelation: number;
+    }
+  | {
       type: 'double-exponential';
       jumpIntensity: number;
       upProbability: number;
@@ -64,6 +76,22 @@ export const lognormalJumps = (p: ParameterValues): JumpLaw => ({
   jumpMean: num(p, 'jumpMean'),
   jumpStdev: num(p, 'jumpStdev'),
 });
+
+/**
+ * SVCJ jumps (Duffie, Pan & Singleton 2000); with no variance jump they are Merton's lognormal
+ * jumps exactly, so that case is built as the lognormal law (Bates to the last bit).
+ */
+export const priceVarianceJumps = (p: ParameterValues): JumpLaw =>
+  num(p, 'varianceJumpMean') === 0
+    ? lognormalJumps(p)
+    : {
+        type: 'price-variance',
+        jumpIntensity: num(p, 'jumpIntensity'),
+        jumpMean: num(p, 'jumpMean'),
+        jumpStdev: num(p, 'jumpStdev'),
+        varianceJumpMean: num(p, 'varianceJumpMean'),
+        jumpCorrelation: num(p, 'jumpCorrelation'),
+      };
 
 /** Kou (2002): up with probability upProbability, mean up and down log-jumps 1/η1 and 1/η2. */
 export const doubleExponentialJumps = (p: ParameterValues): JumpLaw => ({

@@ -159,6 +159,26 @@ export const PARAMETER_SPECS = {
     default: 0.08,
     step: 0.01,
   },
+  varianceJumpMean: {
+    label: 'Mean variance jump',
+    symbol: 'μV',
+    unit: '',
+    domain: { lo: 0, hi: 5 },
+    fit: { lo: 0, hi: 1, startLo: 0.005, startHi: 0.15, guess: 0.04 },
+    default: 0.04,
+    step: 0.01,
+    stress: { field: 'varianceJumpScale', op: 'scale' },
+  },
+  jumpCorrelation: {
+    label: 'Jump correlation',
+    symbol: 'ρJ',
+    unit: '',
+    domain: { lo: -5, hi: 5 },
+    fit: { lo: -3, hi: 1, startLo: -1, startHi: 0, guess: -0.5 },
+    default: -0.5,
+    step: 0.05,
+    stress: { field: 'jumpCorrelationShift', op: 'shift' },
+  },
 } as const satisfies Record<string, ParameterSpec>;
 
 export type ParameterKey = keyof typeof PARAMETER_SPECS;

@@ -8,7 +8,13 @@
 import { z } from 'zod';
 import { isoDateSchema } from './dates';
 import { bounded, inDomainOf, positiveUpTo } from './fields';
-import { MODEL_KINDS, parametersOf, type ModelKind, type ParametersOf } from './model-registry';
+import {
+  MODEL_KINDS,
+  modelEntry,
+  parametersOf,
+  type ModelKind,
+  type ParametersOf,
+} from './model-registry';
 import { PARAMETER_SPECS } from './parameters';
 import { eventsSchema, intensityScheduleSchema } from './scheduled-moves';
 import type { StressField } from './stress-fields';
@@ -52,12 +58,19 @@ function kindSchema(kind: ModelKind): AnyKindSchema {
   const schedule = takesSchedule
     ? intensityScheduleSchema.optional()
     : z.undefined({ error: 'only a model with jumps takes a jump-intensity schedule' }).optional();
-  const schema: z.ZodType = z.looseObject({
+  const check = modelEntry(kind).check;
+  const object = z.looseObject({
     kind: z.literal(kind),
     ...fields,
     events: eventsSchema.optional(),
     jumpIntensitySchedule: schedule,
   });
+  const schema: z.ZodType = check
+    ? object.superRefine((value, ctx) => {
+        const issue = check(value);
+        if (issue) ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.message });
+      })
+    : object;
   return schema as AnyKindSchema;
 }
 
@@ -77,6 +90,8 @@ export const stressSchema = z.looseObject({
   volOfVolScale: bounded(0, 100).optional(),
   v0Scale: bounded(0, 100).optional(),
   eventSizeScale: bounded(0, 10).optional(),
+  varianceJumpScale: bounded(0, 100).optional(),
+  jumpCorrelationShift: bounded(-5, 5).optional(),
 } satisfies Record<StressField, z.ZodType>);
 
 export const MAX_EXPIRY_YEARS = 50;

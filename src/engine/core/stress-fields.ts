@@ -9,6 +9,8 @@ export const STRESS_FIELDS = [
   'volOfVolScale',
   'v0Scale',
   'eventSizeScale',
+  'varianceJumpScale',
+  'jumpCorrelationShift',
 ] as const;
 
 export type StressField = (typeof STRESS_FIELDS)[number];
@@ -22,4 +24,6 @@ export const NO_STRESS: Stress = {
   volOfVolScale: 1,
   v0Scale: 1,
   eventSizeScale: 1,
+  varianceJumpScale: 1,
+  jumpCorrelationShift: 0,
 };

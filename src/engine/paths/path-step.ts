@@ -72,13 +72,19 @@ export function diffusionStep(
 }
 
 /**
- * The sum of a step's log-jumps (0 when none) given the step's expected jump count `lam` and
- * e^{−lam}, or null for a model without jumps.
+ * A step's jumps: called with the step's expected jump count `lam` and e^{−lam}, it returns the
+ * sum of the step's log-jumps (0 when none) and leaves the sum of their variance jumps in
+ * `varianceJump` (SVCJ; 0 for every other law).
  */
-export function jumpSampler(
-  jl: JumpLaw,
-): ((rng: BlockRandom, lam: number, p0: number) => number) | null {
+export interface JumpDraw {
+  (rng: BlockRandom, lam: number, p0: number): number;
+  varianceJump: number;
+}
+
+/** The jump draw of a law, or null for a model without jumps. */
+export function jumpSampler(jl: JumpLaw): JumpDraw | null {
   if (jl.type === 'none') return null;
+  if (jl.type === 'price-variance') return priceVarianceDraw(jl);
   const size =
     jl.type === 'lognormal'
       ? (rng: BlockRandom) => jl.jumpMean + jl.jumpStdev * rng.normal()
@@ -86,7 +92,7 @@ export function jumpSampler(
           rng.uniform() < jl.upProbability
             ? -jl.upMean * Math.log(rng.uniform())
             : jl.downMean * Math.log(rng.uniform());
-  return (rng, lam, p0) => {
+  const draw = ((rng: BlockRandom, lam: number, p0: number) => {
     if (!(lam > 0)) return 0;
     // Poisson count by inversion (λΔ is small), then the sum of that many log-jumps
     let u = rng.uniform();
@@ -100,12 +106,46 @@ export function jumpSampler(
       total += size(rng);
     }
     return total;
-  };
+  }) as JumpDraw;
+  draw.varianceJump = 0;
+  return draw;
+}
+
+/**
+ * SVCJ jumps, exact (Duffie, Pan & Singleton 2000): per jump Z_V = −μV ln U (exponential) and
+ * Z_S = μS + ρJ·Z_V + σS·N.
+ */
+function priceVarianceDraw(jl: Extract<JumpLaw, { type: 'price-variance' }>): JumpDraw {
+  const draw = ((rng: BlockRandom, lam: number, p0: number) => {
+    draw.varianceJump = 0;
+    if (!(lam > 0)) return 0;
+    let u = rng.uniform();
+    let k = 0;
+    let p = p0;
+    let total = 0;
+    while (u > p && k < 50) {
+      u -= p;
+      k++;
+      p *= lam / k;
+      const zv = -jl.varianceJumpMean * Math.log(rng.uniform());
+      draw.varianceJump += zv;
+      total += jl.jumpMean + jl.jumpCorrelation * zv + jl.jumpStdev * rng.normal();
+    }
+    return total;
+  }) as JumpDraw;
+  draw.varianceJump = 0;
+  return draw;
 }
 
 /** k̄ = E[e^J] − 1 for one jump (0 without jumps). */
 export function meanRelativeJump(jl: JumpLaw): number {
   if (jl.type === 'lognormal') return Math.expm1(jl.jumpMean + 0.5 * jl.jumpStdev * jl.jumpStdev);
+  if (jl.type === 'price-variance')
+    return (
+      Math.exp(jl.jumpMean + 0.5 * jl.jumpStdev * jl.jumpStdev) /
+        (1 - jl.jumpCorrelation * jl.varianceJumpMean) -
+      1
+    );
   if (jl.type === 'double-exponential')
     return jl.upProbability / (1 - jl.upMean) + (1 - jl.upProbability) / (1 + jl.downMean) - 1;
   return 0;

@@ -62,6 +62,9 @@ export interface BlockSums {
   /** Σ S_T/S_0 and Σ (S_T/S_0)² */
   terminalSum: number;
   terminalSq: number;
+  /** Σ v_T and Σ v_T² (the variance at the horizon) */
+  varianceSum: number;
+  varianceSq: number;
   jumps: number;
   /** terminal log-returns ln(S_T/S_0), for quantiles and the histogram */
   terminal: Float64Array;
@@ -113,6 +116,7 @@ export function simulateBlock(
   const count = Math.min(BLOCK_PATHS, s.paths - first);
   const rng = new BlockRandom(s.seed, block);
   const jumpStep = jumpSampler(spec.jumps);
+  const varianceJumps = spec.jumps.type === 'price-variance';
   const lam = grid.expectedJumps;
   const p0 = lam.map((l) => Math.exp(-l));
   const moves = grid.movesAt;
@@ -127,6 +131,8 @@ export function simulateBlock(
     count,
     terminalSum: 0,
     terminalSq: 0,
+    varianceSum: 0,
+    varianceSq: 0,
     jumps: 0,
     terminal: new Float64Array(count),
     steps: n,
@@ -189,6 +195,7 @@ export function simulateBlock(
       v = state[1];
       if (jumpStep) {
         const j = jumpStep(rng, lam[step - 1], p0[step - 1]);
+        if (varianceJumps) v += jumpStep.varianceJump;
         if (j !== 0) {
           sums.jumps++;
           pathJumps++;
@@ -236,6 +243,8 @@ export function simulateBlock(
     const level = Math.exp(x);
     sums.terminalSum += level;
     sums.terminalSq += level * level;
+    sums.varianceSum += v;
+    sums.varianceSq += v * v;
     sums.terminal[p] = x;
     if (sums.histogram) histogramInto(sums.histogram, s.histogram!, x);
   }
@@ -277,6 +286,8 @@ export interface SimulationResult {
     quantiles: Record<string, number>;
   };
   jumpsPerPath: number;
+  /** the variance at the horizon: mean and its standard error */
+  terminalVariance: { mean: number; stdError: number };
   elapsedMs: number;
 }
 
@@ -296,6 +307,8 @@ export function combineBlocks(
   let n = 0;
   let tSum = 0;
   let tSq = 0;
+  let vSum = 0;
+  let vSq = 0;
   let jumps = 0;
   for (const b of blocks) {
     for (let i = 0; i < k; i++) {
@@ -308,6 +321,8 @@ export function combineBlocks(
     n += b.count;
     tSum += b.terminalSum;
     tSq += b.terminalSq;
+    vSum += b.varianceSum;
+    vSq += b.varianceSq;
     jumps += b.jumps;
   }
   const horizonCarry = riskFreeRate(market, s.horizon) - dividendRate(market, s.horizon);
@@ -379,6 +394,10 @@ export function combineBlocks(
       },
     },
     jumpsPerPath: jumps / n,
+    terminalVariance: {
+      mean: vSum / n,
+      stdError: Math.sqrt(Math.max(0, vSq / n - (vSum / n) ** 2) / Math.max(1, n - 1)),
+    },
     elapsedMs,
   };
 }

@@ -104,6 +104,7 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
   const dt = horizon / n;
   const advances = stepAdvances(spec, 'qe', grid);
   const jumps = jumpSampler(spec.jumps);
+  const varianceJumps = spec.jumps.type === 'price-variance';
   const lam = grid.expectedJumps;
   const p0 = lam.map((l) => Math.exp(-l));
   const table = buildHedgeTable(market, model, position, times);
@@ -194,6 +195,7 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
       let jumped = false;
       if (jumps) {
         const j = jumps(rng, lam[k], p0[k]);
+        if (varianceJumps) state[1] += jumps.varianceJump;
         if (j !== 0) {
           jumped = true;
           state[0] += j;

@@ -1,0 +1,180 @@
+/**
+ * The jump part of ln E[e^{wY}] for SVCJ (Duffie, Pan & Singleton 2000, "Transform analysis and
+ * asset pricing for affine jump-diffusions", Econometrica 68, section 3): jumps arrive at rate λ,
+ * the variance gains Z_V ~ Exp(mean μV) and ln S gains Z_S | Z_V ~ N(μS + ρJ·Z_V, σS²). With D(τ)
+ * Heston's variance coefficient at time to go τ, the jump term is
+ *   Σ_k λ_k ∫ (E[e^{w Z_S + D(τ) Z_V}] − 1) dτ − w·m·Λ(T),
+ *   E[e^{w Z_S + D Z_V}] = e^{wμS + ½w²σS²} / (a₀ − μV·D),   a₀ = 1 − wρJμV,
+ *   m = e^{μS + ½σS²}/(1 − ρJμV) − 1.
+ * With D(τ) = A(1 − e^{−dτ})/(1 − g e^{−dτ}) (the "little trap" form of `characteristic.ts`),
+ * 1/(a₀ − μV·D) = (1 − g e^{−dτ})/(P − Q e^{−dτ}), P = a₀ − μV·A, Q = a₀g − μV·A, whose integral
+ * is, in closed form (DPS 2000 integrate the same rational function of e^{−dτ}),
+ *   J(τ) = τ/P − (μV·A/(a₀ d P))·(1 − e^{−dτ})·L(z),   z = Q(1 − e^{−dτ})/(a₀(1 − g)),
+ * with L(z) = ln(1 + z)/z (1 at z = 0). Written this way the logarithm is ln(1 + z) on its
+ * principal branch, every division that could vanish at w = 0 has cancelled, and ρJ·μV → 0 or
+ * μV → 0 reduce smoothly to Bates.
+ */
+import type { Diffusion, JumpLaw } from '../core/model-spec';
+
+type Heston = Extract<Diffusion, { type: 'heston' }>;
+type PriceVariance = Extract<JumpLaw, { type: 'price-variance' }>;
+
+/** A stretch of time to go (τ from lo to hi) at one intensity. */
+export interface IntensitySegment {
+  lo: number;
+  hi: number;
+  rate: number;
+}
+
+/** ln(1 + z)/z for complex z, written to (out[0], out[1]). */
+function log1pOverZ(zr: number, zi: number, out: Float64Array): void {
+  const m = zr * zr + zi * zi;
+  if (m < 1e-16) {
+    out[0] = 1 - 0.5 * zr + (zr * zr - zi * zi) / 3;
+    out[1] = -0.5 * zi + (2 * zr * zi) / 3;
+    return;
+  }
+  const lr = 0.5 * Math.log1p(2 * zr + m);
+  const li = Math.atan2(zi, 1 + zr);
+  out[0] = (lr * zr + li * zi) / m;
+  out[1] = (li * zr - lr * zi) / m;
+}
+
+/**
+ * Adds the SVCJ jump term at each w = wr[j] + i·wi[j] to (outRe, outIm), for the intensity
+ * segments given (one segment (0, T) at λ without a schedule) and the total Λ(T).
+ */
+export function addPriceVarianceJumps(
+  h: Heston,
+  jl: PriceVariance,
+  segments: readonly IntensitySegment[],
+  totalIntensity: number,
+  wr: Float64Array,
+  wi: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+  count: number,
+): void {
+  const { kappa, volOfVol: xi, rho } = h;
+  const xi2 = xi * xi;
+  const { jumpMean: muS, jumpStdev: sS, varianceJumpMean: muV, jumpCorrelation: rhoJ } = jl;
+  const hv = 0.5 * sS * sS;
+  const kbar = Math.exp(muS + hv) / (1 - rhoJ * muV) - 1;
+  const L = new Float64Array(2);
+  for (let j = 0; j < count; j++) {
+    const a = wr[j];
+    const b = wi[j];
+    if (a === 0 && b === 0) continue;
+    // Heston's q, β, d, A = −q/(β + d), g = A ξ²/(β + d), as in characteristic.ts
+    const qr = a - (a * a - b * b);
+    const qi = b - 2 * a * b;
+    const br = kappa - rho * xi * a;
+    const bi = -rho * xi * b;
+    const zr0 = br * br - bi * bi + xi2 * qr;
+    const zi0 = 2 * br * bi + xi2 * qi;
+    const mod = Math.sqrt(zr0 * zr0 + zi0 * zi0);
+    let dr: number, di: number;
+    if (zr0 >= 0) {
+      dr = Math.sqrt(0.5 * (mod + zr0));
+      di = dr > 0 ? zi0 / (2 * dr) : 0;
+    } else {
+      di = Math.sqrt(0.5 * (mod - zr0));
+      if (zi0 < 0) di = -di;
+      dr = zi0 / (2 * di);
+    }
+    const sr = br + dr;
+    const si = bi + di;
+    const sm = sr * sr + si * si;
+    const isr = sr / sm;
+    const isi = -si / sm;
+    const Ar = -(qr * isr - qi * isi);
+    const Ai = -(qr * isi + qi * isr);
+    const gr = xi2 * (Ar * isr - Ai * isi);
+    const gi = xi2 * (Ar * isi + Ai * isr);
+    // a₀ = 1 − wρJμV, P = a₀ − μV A, Q = a₀ g − μV A
+    const a0r = 1 - a * rhoJ * muV;
+    const a0i = -b * rhoJ * muV;
+    const Pr = a0r - muV * Ar;
+    const Pi = a0i - muV * Ai;
+    const Qr = a0r * gr - a0i * gi - muV * Ar;
+    const Qi = a0r * gi + a0i * gr - muV * Ai;
+    // 1/P, and c = μV A/(a₀ d P)
+    const pm = Pr * Pr + Pi * Pi;
+    const iPr = Pr / pm;
+    const iPi = -Pi / pm;
+    const denr0 = a0r * dr - a0i * di;
+    const deni0 = a0r * di + a0i * dr;
+    const denr = denr0 * Pr - deni0 * Pi;
+    const deni = denr0 * Pi + deni0 * Pr;
+    const dm = denr * denr + deni * deni;
+    const nr = muV * Ar;
+    const ni = muV * Ai;
+    const cr = (nr * denr + ni * deni) / dm;
+    const ci = (ni * denr - nr * deni) / dm;
+    // a₀(1 − g), for z
+    const er0 = a0r * (1 - gr) + a0i * gi;
+    const ei0 = a0i * (1 - gr) - a0r * gi;
+    const em = er0 * er0 + ei0 * ei0;
+    const qer = (Qr * er0 + Qi * ei0) / em;
+    const qei = (Qi * er0 - Qr * ei0) / em;
+    // θ0 = e^{wμS + ½w²σS²}
+    const tr0 = muS * a + hv * (a * a - b * b);
+    const ti0 = muS * b + hv * 2 * a * b;
+    const tm = Math.exp(tr0);
+    const thr = tm * Math.cos(ti0);
+    const thi = tm * Math.sin(ti0);
+    let sumR = 0;
+    let sumI = 0;
+    for (const seg of segments) {
+      if (!(seg.rate > 0) || !(seg.hi > seg.lo)) continue;
+      // J(hi) − J(lo)
+      let Jr = 0;
+      let Ji = 0;
+      for (const [tau, sign] of [
+        [seg.hi, 1],
+        [seg.lo, -1],
+      ] as const) {
+        if (tau === 0) continue;
+        // om = 1 − e^{−dτ}, with expm1 and 1 − cos x = 2 sin²(x/2) against cancellation
+        const ex = Math.exp(-dr * tau);
+        const sHalf = Math.sin(0.5 * di * tau);
+        const omr = -(Math.expm1(-dr * tau) * Math.cos(di * tau) - 2 * sHalf * sHalf);
+        const omi = ex * Math.sin(di * tau);
+        const zr = qer * omr - qei * omi;
+        const zi = qer * omi + qei * omr;
+        log1pOverZ(zr, zi, L);
+        // c·om·L
+        const t1r = cr * omr - ci * omi;
+        const t1i = cr * omi + ci * omr;
+        const t2r = t1r * L[0] - t1i * L[1];
+        const t2i = t1r * L[1] + t1i * L[0];
+        Jr += sign * (tau * iPr - t2r);
+        Ji += sign * (tau * iPi - t2i);
+      }
+      // λ_k (θ0·ΔJ − Δτ)
+      sumR += seg.rate * (thr * Jr - thi * Ji - (seg.hi - seg.lo));
+      sumI += seg.rate * (thr * Ji + thi * Jr);
+    }
+    outRe[j] += sumR - a * kbar * totalIntensity;
+    outIm[j] += sumI - b * kbar * totalIntensity;
+  }
+}
+
+/** The intensity schedule over [0, T] as stretches of time to go τ = T − s, each at one rate. */
+export function intensitySegments(
+  base: number,
+  schedule: ReadonlyArray<readonly [number, number]> | undefined,
+  T: number,
+): IntensitySegment[] {
+  if (!schedule || schedule.length === 0) return [{ lo: 0, hi: T, rate: base }];
+  const out: IntensitySegment[] = [];
+  let start = 0;
+  for (const [end, rate] of schedule) {
+    if (start >= T) break;
+    const stop = Math.min(end, T);
+    out.push({ lo: T - stop, hi: T - start, rate });
+    start = stop;
+  }
+  if (start < T) out.push({ lo: 0, hi: T - start, rate: base });
+  return out;
+}
