@@ -19,8 +19,10 @@ import {
   applyStress,
   isIdentityStress,
   parseScenario,
+  MODEL_KINDS,
   type Market,
   type Model,
+  type ModelKind,
   type OptionSpec,
 } from '../src/engine/core';
 import {
@@ -219,7 +221,7 @@ const calibrateRequest = z.object({
   market: marketSchema,
   model: z
     .object({
-      kind: z.enum(['heston', 'merton', 'bates', 'heston-kou', 'black-scholes'], {
+      kind: z.enum(MODEL_KINDS as [ModelKind, ...ModelKind[]], {
         error: 'must be a model kind',
       }),
       fixed: z.array(z.string()).optional(),
