@@ -301,6 +301,11 @@ export function calibrate(request: unknown) {
     onBounds: r.onBounds,
     elapsedMs: r.elapsedMs,
     residuals: r.residuals,
+    standardErrors: Object.fromEntries(
+      r.errors.names.map((n, i) => [n, r.errors.standardErrors[i]]),
+    ),
+    correlations: { names: r.errors.names, matrix: r.errors.correlations },
+    notIdentified: r.errors.unidentified,
   };
 }
 

@@ -69,6 +69,8 @@ export interface BookRequest {
   scenarios: BookScenario[];
   positions: Position[];
   ladder: LadderSpec;
+  /** ATM vol points added per 1 % fall, for the vol-reaction ladder */
+  volReaction?: number;
 }
 
 export interface EngineApi {

@@ -108,7 +108,7 @@ export const engineHandlers: EngineApi = {
   smiles: computeSmiles,
   price: computePrices,
   sensitivities: (req) => smileSensitivities(req.market, req.model, req.expiry, req.moneyness),
-  book: (req) => revalueSet(req.base, req.scenarios, req.positions, req.ladder),
+  book: (req) => revalueSet(req.base, req.scenarios, req.positions, req.ladder, req.volReaction),
   demoChain: demoChainCsv,
   density: (model, expiry, points) => logReturnDensity(model, expiry, points),
 };

@@ -6,7 +6,13 @@ import {
   priceOptions,
 } from '../../src/engine/analytic';
 import { validateModel, type Model, type OptionSpec } from '../../src/engine/core';
-import { simulate, type SimulationSettings } from '../../src/engine/paths';
+import {
+  blockCount,
+  combineBlocks,
+  simulate,
+  simulateBlock,
+  type SimulationSettings,
+} from '../../src/engine/paths';
 import { cosPrice, lewisPrice, market } from './helpers';
 
 const svcj = (over: Partial<Record<string, number>> = {}): Model =>
@@ -210,6 +216,20 @@ describe('SVCJ Monte Carlo: exact jumps in price and variance, Andersen QE betwe
           3 * e.stdError,
         ),
       );
+    }
+  });
+
+  it('gives bit-identical numbers however the blocks are shared out (1, 2 or 3 workers)', () => {
+    const s = { ...settings(0.25, [{ type: 'put', strike: 90, expiry: 0.25 }]), paths: 8000 };
+    const model = svcj({ varianceJumpMean: 0.1 });
+    const whole = simulate(m, model, s);
+    for (const workers of [1, 2, 3]) {
+      const blocks = new Array(blockCount(s));
+      for (let w = workers - 1; w >= 0; w--)
+        for (let b = w; b < blockCount(s); b += workers) blocks[b] = simulateBlock(m, model, s, b);
+      const combined = combineBlocks(m, s, blocks, 0);
+      expect(combined.estimates).toEqual(whole.estimates);
+      expect(combined.terminalVariance).toEqual(whole.terminalVariance);
     }
   });
 

@@ -4,7 +4,9 @@ import {
   ladderMoves,
   legRisks,
   legValuesAtMoves,
+  legValuesAtMovesSticky,
   stickyStrikeValuesAtMoves,
+  volReactionValuesAtMoves,
   sumRow,
   type BookTotal,
   type LadderSpec,
@@ -39,14 +41,25 @@ export interface SetRevaluation {
   base: { legs: LegRisk[]; total: BookTotal };
   scenarios: ScenarioPnl[];
   moves: number[];
-  /** ladder P&L of the base scenario's model, and of sticky-strike Black-Scholes */
+  /**
+   * ladder P&L of the base scenario's model; with the model held as it is (sticky moneyness:
+   * the same as the model line except under SVCJ, whose variance reacts to a jump); of
+   * sticky-strike Black-Scholes; and of sticky strike with the user's spot-vol reaction
+   */
   baseLadder: number[];
+  stickyMoneynessLadder: number[];
   stickyStrikeLadder: number[];
+  volReactionLadder: number[];
+  /** the spot-vol reaction used: ATM vol points added per 1 % fall */
+  volReaction: number;
   /** probability of a jump into each ladder bin within a day and within a week (base model) */
   jumpPerDay: number[];
   jumpPerWeek: number[];
   elapsedMs: number;
 }
+
+/** The spot-vol reaction a new ladder starts from: vol points per 1 % fall (a user setting). */
+export const DEFAULT_VOL_REACTION = 0.5;
 
 function ladderPnl(values: Float64Array[], now: number): number[] {
   return values.map((row) => sumRow(row) - now);
@@ -57,6 +70,7 @@ export function revalueSet(
   scenarios: readonly BookScenario[],
   positions: readonly Position[],
   ladder: LadderSpec,
+  volReaction = DEFAULT_VOL_REACTION,
 ): SetRevaluation {
   const started = performance.now();
   const moves = ladderMoves(ladder);
@@ -68,6 +82,14 @@ export function revalueSet(
   );
   const stickyStrikeLadder = ladderPnl(
     stickyStrikeValuesAtMoves(base.market, positions, legs, moves),
+    total.value,
+  );
+  const stickyMoneynessLadder = ladderPnl(
+    legValuesAtMovesSticky(base.market, base.model, positions, moves),
+    total.value,
+  );
+  const volReactionLadder = ladderPnl(
+    volReactionValuesAtMoves(base.market, positions, legs, moves, volReaction),
     total.value,
   );
   const results: ScenarioPnl[] = scenarios.map((s) => {
@@ -107,7 +129,10 @@ export function revalueSet(
     scenarios: results,
     moves,
     baseLadder,
+    stickyMoneynessLadder,
     stickyStrikeLadder,
+    volReactionLadder,
+    volReaction,
     jumpPerDay: jumpMoveProbabilities(base.model, moves, 1 / 365),
     jumpPerWeek: jumpMoveProbabilities(base.model, moves, 7 / 365),
     elapsedMs: performance.now() - started,

@@ -12,6 +12,7 @@ import { discountFactor, forwardPrice } from '../core/market';
 import { priceOptions } from '../analytic/pricing';
 import type { Position } from './positions';
 import { isBlackScholes, parameterValue } from '../core/models';
+import { expectedVarianceJump } from '../core/jump-summary';
 import type { Market, Model } from '../core/types';
 
 export interface LegRisk {
@@ -83,10 +84,35 @@ export function bookTotal(legs: readonly LegRisk[]): BookTotal {
 }
 
 /**
- * Leg values (quantity × price) after each relative spot move: values[m][leg], with the
- * rates, dividends and model unchanged.
+ * Leg values (quantity × price) after each relative spot move: values[m][leg], with the rates,
+ * dividends and model unchanged, except that under SVCJ a move is read as one jump of that size:
+ * the variance gains E[Z_V | Z_S = ln(1 + move)] (`expectedVarianceJump`), so vol reacts to the
+ * gap as the model's joint jump law says.
  */
 export function legValuesAtMoves(
+  market: Market,
+  model: Model,
+  positions: readonly Position[],
+  moves: readonly number[],
+): Float64Array[] {
+  const jumps = modelSpec(model).jumps;
+  if (jumps.type !== 'price-variance')
+    return legValuesAtMovesSticky(market, model, positions, moves);
+  const v0 = parameterValue(model, 'v0');
+  return moves.map((m) => {
+    const reacted =
+      m === 0
+        ? model
+        : ({ ...model, v0: v0 + expectedVarianceJump(jumps, Math.log1p(m)) } as Model);
+    return legValuesAtMovesSticky(market, reacted, positions, [m])[0];
+  });
+}
+
+/**
+ * Leg values after each move with the model itself unchanged: every model here is invariant to
+ * the scale of spot, so this is the sticky-moneyness rule (the smile moves with spot).
+ */
+export function legValuesAtMovesSticky(
   market: Market,
   model: Model,
   positions: readonly Position[],
@@ -181,6 +207,27 @@ export function stickyStrikeValuesAtMoves(
             });
     });
     return row;
+  });
+}
+
+/**
+ * Sticky strike with a spot-vol reaction: each option keeps today's implied vol plus
+ * `pointsPerPercentDown` vol points for each 1 % the spot falls (and minus as much per 1 % up),
+ * floored at 1 vol point.
+ */
+export function volReactionValuesAtMoves(
+  market: Market,
+  positions: readonly Position[],
+  legs: readonly LegRisk[],
+  moves: readonly number[],
+  pointsPerPercentDown: number,
+): Float64Array[] {
+  return moves.map((m) => {
+    const shift = -m * pointsPerPercentDown;
+    const shifted = legs.map((l) =>
+      l.impliedVol === null ? l : { ...l, impliedVol: Math.max(0.01, l.impliedVol + shift) },
+    );
+    return stickyStrikeValuesAtMoves(market, positions, shifted, [m])[0];
   });
 }
 

@@ -15,7 +15,8 @@ import {
   type ModelSpec,
   type ParameterValues,
 } from './model-spec';
-import type { ParameterKey } from './parameters';
+import { expectedVarianceJump } from './jump-summary';
+import { PARAMETER_SPECS, type ParameterKey, type ParameterSpec } from './parameters';
 import type { Stress } from './stress-fields';
 
 export interface ParameterGroup {
@@ -114,6 +115,24 @@ export const MODEL_REGISTRY = {
       },
     ],
     spec: (p) => ({ diffusion: hestonDiffusion(p), jumps: priceVarianceJumps(p) }),
+    // a spot gap is read as one jump of that size: the variance gains what such a jump brings
+    // on average, E[Z_V | Z_S = ln(1 + gap)]
+    stressJumps: (p, s): Record<string, number> =>
+      s.spotShift === 0
+        ? {}
+        : {
+            v0:
+              (p.v0 as number) * s.v0Scale +
+              expectedVarianceJump(
+                {
+                  jumpMean: (p.jumpMean as number) + s.jumpMeanShift,
+                  jumpStdev: (p.jumpStdev as number) * s.jumpStdevScale,
+                  varianceJumpMean: (p.varianceJumpMean as number) * s.varianceJumpScale,
+                  jumpCorrelation: (p.jumpCorrelation as number) + s.jumpCorrelationShift,
+                },
+                Math.log1p(s.spotShift),
+              ),
+          },
     // E[e^{Z_S}] = e^{μS + σS²/2}/(1 − ρJ·μV) is finite only while ρJ·μV < 1
     check: (p) =>
       (p.jumpCorrelation as number) * (p.varianceJumpMean as number) < 1
@@ -153,3 +172,13 @@ export function parametersIn(kind: ModelKind, role: ParameterGroup['role']): Par
 
 export const modelLabel = (kind: ModelKind): string => modelEntry(kind).label;
 export const modelShortLabel = (kind: ModelKind): string => modelEntry(kind).shortLabel;
+
+/** The stress fields that move a kind's parameters (the spot gap moves every kind). */
+export function stressFieldsOf(kind: ModelKind): (keyof Stress)[] {
+  const fields = new Set<keyof Stress>(['spotShift']);
+  for (const p of parametersOf(kind)) {
+    const rule = (PARAMETER_SPECS[p] as ParameterSpec).stress;
+    if (rule) fields.add(rule.field);
+  }
+  return [...fields];
+}

@@ -18,6 +18,7 @@ import {
 import { cosStrip, DEFAULT_COS_SETTINGS, prepareCos, type CosSettings } from '../analytic/cos';
 import { levenbergMarquardt } from './levenberg-marquardt';
 import { eventSizeKey } from './event-sizes';
+import { parameterErrors, type ParameterErrors } from './parameter-errors';
 import { forwardPrice } from '../core/market';
 import { normPdf } from '../analytic/normal';
 import { impliedVolFromOtm } from '../analytic/pricing';
@@ -65,6 +66,8 @@ export interface CalibrationResult {
   feller: { holds: boolean; margin: number } | null;
   onBounds: string[];
   residuals: Residual[];
+  /** how well the quotes pin each fitted coordinate down (from the Jacobian at the optimum) */
+  errors: ParameterErrors;
 }
 
 const TRIAL_COS: CosSettings = { ...DEFAULT_COS_SETTINGS, width: 10, tailTolerance: 1e-11 };
@@ -183,7 +186,28 @@ export function calibrate(
     if (!best || r.cost < best.cost) best = r;
   }
   const model = toModel(best!.x);
-  return { ...report(req, model), iterations, evaluations, elapsedMs: performance.now() - started };
+  const theta = names.map((n) => coordinateValue(model, n));
+  const errors = parameterErrors(
+    names,
+    theta,
+    // a step of 1e-4 of the box
+    bounds.map((b) => 1e-4 * (b.hi - b.lo) || 1e-6),
+    (th) => {
+      const vols = modelVols(req.market, withParameters(req.model, names, th), req.quotes);
+      return Float64Array.from(
+        req.quotes,
+        (q, i) => 100 * ((vols[i] ?? 0) - q.impliedVol) * sqrtW[i],
+      );
+    },
+    bounds,
+  );
+  return {
+    ...report(req, model),
+    errors,
+    iterations,
+    evaluations,
+    elapsedMs: performance.now() - started,
+  };
 }
 
 /** Fit quality of a model against quotes, at full pricing accuracy. */

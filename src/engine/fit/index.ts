@@ -7,3 +7,4 @@ export * from './levenberg-marquardt';
 export * from './quotes-csv';
 export * from './solve-to-targets';
 export * from './demo-chain';
+export * from './parameter-errors';

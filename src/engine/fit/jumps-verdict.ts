@@ -14,17 +14,20 @@ export interface BucketRmse {
   bates: number | null;
   /** Heston with the scheduled move, when it was tried */
   move?: number | null;
+  svcj: number | null;
   count: number;
 }
 
 export interface JumpsVerdict {
   heston: CalibrationResult;
   bates: CalibrationResult;
+  /** SVCJ: Bates with jumps in the variance too (two more parameters) */
+  svcj: CalibrationResult;
   /** Heston plus one scheduled normal move, when a move date was given */
   move?: CalibrationResult;
   buckets: BucketRmse[];
-  aic: { heston: number; bates: number; move?: number };
-  bic: { heston: number; bates: number; move?: number };
+  aic: { heston: number; bates: number; svcj: number; move?: number };
+  bic: { heston: number; bates: number; svcj: number; move?: number };
   /** BIC falls by more than 10 with the jumps: strong evidence for them (Kass & Raftery 1995) */
   jumpsEarnTheirKeep: boolean;
   summary: string;
@@ -66,8 +69,11 @@ export function jumpsVerdict(
 ): JumpsVerdict {
   const g = req.hestonGuess;
   const withMove = req.moveTime !== undefined;
-  const share = withMove ? [0.3, 0.45, 0.25] : [0.4, 0.6, 0];
-  const heston = calibrate({ ...req, model: g }, (f) => req.progress?.(share[0] * f));
+  // progress: each fit's share of the whole, in order heston, bates, svcj, move
+  const share = withMove ? [0.2, 0.3, 0.35, 0.15] : [0.25, 0.35, 0.4, 0];
+  const from = (i: number) => share.slice(0, i).reduce((a, b) => a + b, 0);
+  const stage = (i: number) => (f: number) => req.progress?.(from(i) + share[i] * f);
+  const heston = calibrate({ ...req, model: g }, stage(0));
   const batesGuess: Model = {
     ...(heston.model as Model & { kind: 'heston' }),
     kind: 'bates',
@@ -75,16 +81,21 @@ export function jumpsVerdict(
     jumpMean: -0.08,
     jumpStdev: 0.1,
   };
-  const bates = calibrate({ ...req, model: batesGuess }, (f) =>
-    req.progress?.(share[0] + share[1] * f),
-  );
+  const bates = calibrate({ ...req, model: batesGuess }, stage(1));
+  const svcjGuess = {
+    ...bates.model,
+    kind: 'svcj',
+    varianceJumpMean: 0.04,
+    jumpCorrelation: -0.5,
+  } as Model;
+  const svcj = calibrate({ ...req, model: svcjGuess }, stage(2));
   let move: CalibrationResult | undefined;
   if (withMove) {
     const events = [...(heston.model.events ?? [])];
     events.push({ time: req.moveTime!, law: 'normal', stdev: 0.03, name: 'fitted move' });
     move = calibrate(
       { ...req, model: { ...heston.model, events } as Model, fitEventSizes: [events.length - 1] },
-      (f) => req.progress?.(share[0] + share[1] + share[2] * f),
+      stage(3),
     );
   }
   const kH =
@@ -94,13 +105,24 @@ export function jumpsVerdict(
     kH +
     3 -
     (req.fixed?.filter((p) => ['jumpIntensity', 'jumpMean', 'jumpStdev'].includes(p)).length ?? 0);
+  const kS =
+    kB +
+    2 -
+    (req.fixed?.filter((p) => ['varianceJumpMean', 'jumpCorrelation'].includes(p)).length ?? 0);
   const cH = criteria(heston, kH);
   const cB = criteria(bates, kB);
+  const cS = criteria(svcj, kS);
   const cM = move ? criteria(move, kH + 1) : undefined;
   const buckets = BUCKETS.map(([bucket, lo, hi]) => {
     const h = bucketRmse(heston, lo, hi);
     const b = bucketRmse(bates, lo, hi);
-    const row: BucketRmse = { bucket, heston: h.rmse, bates: b.rmse, count: h.count };
+    const row: BucketRmse = {
+      bucket,
+      heston: h.rmse,
+      bates: b.rmse,
+      svcj: bucketRmse(svcj, lo, hi).rmse,
+      count: h.count,
+    };
     if (move) row.move = bucketRmse(move, lo, hi).rmse;
     return row;
   });
@@ -115,14 +137,19 @@ export function jumpsVerdict(
       : cM.bic < cB.bic
         ? ` One scheduled move (${(100 * (move!.model.events!.at(-1) as { stdev: number }).stdev).toFixed(2)} % s.d.) explains the quotes better than the jumps: BIC ${cM.bic.toFixed(1)} against ${cB.bic.toFixed(1)}.`
         : ` The jumps beat one scheduled move: BIC ${cB.bic.toFixed(1)} against ${cM.bic.toFixed(1)}.`;
+  const versusSvcj =
+    cB.bic - cS.bic > 10
+      ? ` Jumps in the variance earn their ${kS - kB} parameters too: BIC falls by ${(cB.bic - cS.bic).toFixed(1)} from Bates to SVCJ.`
+      : ` Jumps in the variance add little: BIC moves by ${(cS.bic - cB.bic).toFixed(1)} from Bates to SVCJ.`;
   return {
     heston,
     bates,
+    svcj,
     ...(move ? { move } : {}),
     buckets,
-    aic: { heston: cH.aic, bates: cB.aic, ...(cM ? { move: cM.aic } : {}) },
-    bic: { heston: cH.bic, bates: cB.bic, ...(cM ? { move: cM.bic } : {}) },
+    aic: { heston: cH.aic, bates: cB.aic, svcj: cS.aic, ...(cM ? { move: cM.aic } : {}) },
+    bic: { heston: cH.bic, bates: cB.bic, svcj: cS.bic, ...(cM ? { move: cM.bic } : {}) },
     jumpsEarnTheirKeep: earn,
-    summary: summary + versusMove,
+    summary: summary + versusSvcj + versusMove,
   };
 }

@@ -8,7 +8,7 @@ import { PositionsUpload } from './PositionsUpload';
 import { BookPanel } from './BookPanel';
 import { CautionNote } from '../../../components/CautionNote';
 import { formatNumber } from '../../../components/format';
-import type { Position } from '../../../engine/book';
+import { DEFAULT_VOL_REACTION, type Position } from '../../../engine/book';
 import type { StoredScenario } from '../../../store/db';
 import { localScenariosQuery } from '../../../store/hooks';
 import {
@@ -56,8 +56,9 @@ export function BookPage() {
   const update = useUpdateBook();
   const [selectedLeg, setSelectedLeg] = useState<string | null>(null);
   const [ladderScenario, setLadderScenario] = useState(0);
+  const [volReaction, setVolReaction] = useState(DEFAULT_VOL_REACTION);
   const current = sets.data?.find((s) => s.id === params.get('set')) ?? sets.data?.[0];
-  const result = useRevaluation(current, scenarios.data ?? [], DEFAULT_LADDER);
+  const result = useRevaluation(current, scenarios.data ?? [], DEFAULT_LADDER, volReaction);
   const setPositions = (positions: Position[]) =>
     current && update.mutate({ id: current.id, change: { positions } });
   const valuationDate =
@@ -194,6 +195,23 @@ export function BookPage() {
                           ))}
                         </select>
                       </div>
+                      <label className="flex items-center gap-2 text-sm">
+                        <span>Spot-vol reaction: ATM vol +</span>
+                        <input
+                          type="number"
+                          aria-label="Vol points per 1 % fall"
+                          min={0}
+                          max={10}
+                          step={0.1}
+                          value={volReaction}
+                          onChange={(e) => {
+                            const v = Number(e.target.value);
+                            if (Number.isFinite(v) && v >= 0 && v <= 10) setVolReaction(v);
+                          }}
+                          className="tabular w-16 rounded border border-rule bg-panel px-1 py-0.5 text-right"
+                        />
+                        <span>vol points per 1 % fall (and − as much per 1 % rise)</span>
+                      </label>
                       <LadderChart
                         result={data}
                         scenarioIndex={Math.min(ladderScenario, data.scenarios.length - 1)}

@@ -5,7 +5,11 @@ import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 
-/** The gap ladder (base model, sticky-strike Black-Scholes, one scenario) over the jump law. */
+/**
+ * The gap ladder over the jump law: the base model, sticky strike, sticky strike with the
+ * user's spot-vol reaction, sticky moneyness when it differs from the model, and one scenario;
+ * each line says its rule.
+ */
 export function LadderChart({
   result,
   scenarioIndex,
@@ -18,15 +22,42 @@ export function LadderChart({
     const t = chartTheme(theme);
     const x = result.moves.map((m) => 100 * m);
     const s = result.scenarios[scenarioIndex];
+    // the model line is sticky moneyness unless the model's variance reacts to a jump (SVCJ)
+    const reacts = result.baseLadder.some((v, i) => v !== result.stickyMoneynessLadder[i]);
     const data: Data[] = [
       {
         type: 'scatter',
         mode: 'lines+markers',
         x,
         y: result.baseLadder,
-        name: 'base model',
+        name: reacts
+          ? 'base model: variance jumps with the move'
+          : 'base model (sticky moneyness: the smile moves with spot)',
         line: { color: t.base, width: 2 },
         marker: { size: 4 },
+        xaxis: 'x',
+        yaxis: 'y',
+      },
+    ];
+    if (reacts)
+      data.push({
+        type: 'scatter',
+        mode: 'lines',
+        x,
+        y: result.stickyMoneynessLadder,
+        name: 'sticky moneyness (variance held)',
+        line: { color: t.base, width: 1.5, dash: 'dash' },
+        xaxis: 'x',
+        yaxis: 'y',
+      });
+    data.push(
+      {
+        type: 'scatter',
+        mode: 'lines',
+        x,
+        y: result.stickyStrikeLadder,
+        name: 'sticky strike (each option keeps its vol)',
+        line: { color: t.muted, width: 1.5, dash: 'dot' },
         xaxis: 'x',
         yaxis: 'y',
       },
@@ -34,13 +65,13 @@ export function LadderChart({
         type: 'scatter',
         mode: 'lines',
         x,
-        y: result.stickyStrikeLadder,
-        name: 'sticky-strike Black-Scholes',
-        line: { color: t.muted, width: 1.5, dash: 'dot' },
+        y: result.volReactionLadder,
+        name: `sticky strike, ATM vol +${result.volReaction} pts per 1 % fall`,
+        line: { color: t.teal, width: 1.5, dash: 'dashdot' },
         xaxis: 'x',
         yaxis: 'y',
       },
-    ];
+    );
     if (s?.ladder)
       data.push({
         type: 'scatter',

@@ -41,6 +41,7 @@ export function useRevaluation(
   set: LocalBook | undefined,
   scenarios: StoredScenario[],
   ladder: LadderSpec,
+  volReaction: number,
 ) {
   const members = set ? scenarios.filter((s) => set.scenarioIds.includes(s.id)) : [];
   const base = members.find((s) => s.id === set?.baseScenarioId) ?? members[0];
@@ -51,6 +52,7 @@ export function useRevaluation(
           scenarios: members.map((s) => asBookScenario(s, true)),
           positions: set.positions as Position[],
           ladder,
+          volReaction,
         }
       : null;
   return useQuery(revaluationQuery(request));

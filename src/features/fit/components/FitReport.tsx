@@ -16,23 +16,51 @@ export function ParameterTable({ result }: { result: CalibrationResult }) {
   const entries = parametersOf(result.model.kind).map(
     (k) => [k, parameterValue(result.model, k)] as const,
   );
+  const { errors } = result;
+  const seOf = (k: string) => {
+    const i = errors?.names.indexOf(k) ?? -1;
+    return i < 0 ? undefined : errors.standardErrors[i];
+  };
   return (
     <div className="space-y-2" data-testid="fit-parameters">
       <table className="tabular text-sm">
+        <thead className="text-xs text-muted">
+          <tr>
+            <th className="pr-6 text-left font-normal">parameter</th>
+            <th className="text-right font-normal">value</th>
+            <th className="pl-3 text-right font-normal">std. error</th>
+            <th />
+          </tr>
+        </thead>
         <tbody>
-          {entries.map(([k, v]) => (
-            <tr key={k} className="border-b border-rule/60">
-              <th scope="row" className="py-1 pr-6 text-left font-normal">
-                {parameterLabel(k)}
-              </th>
-              <td className="py-1 text-right">{v.toPrecision(5)}</td>
-              <td className="py-1 pl-3 text-xs text-stressed">
-                {result.onBounds.includes(k) ? 'on its bound' : ''}
-              </td>
-            </tr>
-          ))}
+          {entries.map(([k, v]) => {
+            const se = seOf(k);
+            return (
+              <tr key={k} className="border-b border-rule/60">
+                <th scope="row" className="py-1 pr-6 text-left font-normal">
+                  {parameterLabel(k)}
+                </th>
+                <td className="py-1 text-right">{v.toPrecision(5)}</td>
+                <td className="py-1 pl-3 text-right text-muted">
+                  {se === undefined ? 'held' : se === null ? '—' : `±${se.toPrecision(2)}`}
+                </td>
+                <td className="py-1 pl-3 text-xs text-stressed">
+                  {[
+                    result.onBounds.includes(k) ? 'on its bound' : '',
+                    errors?.unidentified.includes(k) ? 'not pinned down by these quotes' : '',
+                  ]
+                    .filter(Boolean)
+                    .join('; ')}
+                </td>
+              </tr>
+            );
+          })}
         </tbody>
       </table>
+      <p className="text-xs text-muted">
+        Standard errors from the Jacobian at the optimum; “not pinned down” means a relative error
+        above 100 % or a correlation above 0.95 with another parameter.
+      </p>
       <p className="tabular text-sm" data-testid="fit-quality">
         RMSE {result.rmseVolPoints.toFixed(3)} vol points · SSE {result.sseVolPoints.toFixed(3)} ·{' '}
         {result.iterations} iterations · {result.elapsedMs.toFixed(0)} ms
@@ -168,6 +196,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             <th className="pr-6 text-left font-normal">RMSE (vol pts)</th>
             <th className="px-3 font-normal">Heston</th>
             <th className="px-3 font-normal">Bates</th>
+            <th className="px-3 font-normal">SVCJ</th>
             {move && <th className="px-3 font-normal">Heston + one move</th>}
             <th className="px-3 font-normal">quotes</th>
           </tr>
@@ -180,6 +209,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
               </th>
               <td className="px-3 text-right">{f(b.heston)}</td>
               <td className="px-3 text-right">{f(b.bates)}</td>
+              <td className="px-3 text-right">{f(b.svcj)}</td>
               {move && <td className="px-3 text-right">{f(b.move)}</td>}
               <td className="px-3 text-right">{b.count}</td>
             </tr>
@@ -190,6 +220,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             </th>
             <td className="px-3 text-right">{f(verdict.heston.rmseVolPoints)}</td>
             <td className="px-3 text-right">{f(verdict.bates.rmseVolPoints)}</td>
+            <td className="px-3 text-right">{f(verdict.svcj.rmseVolPoints)}</td>
             {move && <td className="px-3 text-right">{f(move.rmseVolPoints)}</td>}
             <td />
           </tr>
@@ -199,6 +230,7 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             </th>
             <td className="px-3 text-right">{verdict.aic.heston.toFixed(1)}</td>
             <td className="px-3 text-right">{verdict.aic.bates.toFixed(1)}</td>
+            <td className="px-3 text-right">{verdict.aic.svcj.toFixed(1)}</td>
             {move && <td className="px-3 text-right">{verdict.aic.move?.toFixed(1)}</td>}
             <td />
           </tr>
@@ -208,14 +240,15 @@ export function VerdictPanel({ verdict }: { verdict: JumpsVerdict }) {
             </th>
             <td className="px-3 text-right">{verdict.bic.heston.toFixed(1)}</td>
             <td className="px-3 text-right">{verdict.bic.bates.toFixed(1)}</td>
+            <td className="px-3 text-right">{verdict.bic.svcj.toFixed(1)}</td>
             {move && <td className="px-3 text-right">{verdict.bic.move?.toFixed(1)}</td>}
             <td />
           </tr>
         </tbody>
       </table>
       <p className="text-xs text-muted">
-        AIC and BIC charge each model for its parameters (5 for Heston, 8 for Bates
-        {move ? ', 6 for Heston with one move' : ''}); lower is better.
+        AIC and BIC charge each model for its parameters (5 for Heston, 8 for Bates, 10 for SVCJ
+        {move ? ', 6 for Heston with one move' : ''}, fewer for those held fixed); lower is better.
       </p>
     </div>
   );

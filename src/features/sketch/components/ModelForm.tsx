@@ -1,7 +1,10 @@
 import type { ReactNode } from 'react';
 import {
   convertModel,
+  jumpSummary,
   modelEntry,
+  modelSpec,
+  validateModel,
   modelLabel,
   MODEL_KINDS,
   parameterLabel,
@@ -49,6 +52,39 @@ function FellerNote({ model }: { model: Model }) {
       Feller condition 2κθ ≥ ξ²: {margin >= 0 ? 'holds' : 'does not hold'} (
       {(2 * kappa * theta).toFixed(3)} vs {(xi ** 2).toFixed(3)}); shown, not enforced.
     </p>
+  );
+}
+
+/**
+ * The jump law in plain words: how often, the mean move, the share upward (flagged when large
+ * for an index), and for SVCJ how far one jump lifts the ATM vol from today's variance.
+ */
+function JumpLawNote({ model }: { model: Model }) {
+  if (validateModel(model).length > 0) return null;
+  const summary = jumpSummary(modelSpec(model).jumps);
+  if (!summary) return <p className="text-xs text-muted">No jumps at zero intensity.</p>;
+  const years = summary.yearsBetween;
+  const every = years >= 1 ? `${years.toFixed(1)} years` : `${(years * 365).toFixed(0)} days`;
+  const v0 = typeof model.v0 === 'number' ? model.v0 : null;
+  return (
+    <div className="space-y-0.5 text-xs text-muted" data-testid="jump-law-note">
+      <p>
+        A jump every {every} on average, mean move {(100 * summary.meanMove).toFixed(1)} %,{' '}
+        {(100 * summary.upShare).toFixed(0)} % of jumps upward.
+      </p>
+      {summary.upShare > 0.4 && (
+        <p className="text-stressed">
+          That many upward jumps is unusual for an equity index, whose jumps are mostly falls.
+        </p>
+      )}
+      {summary.varianceJump !== undefined && v0 !== null && (
+        <p>
+          Each jump adds {summary.varianceJump.toFixed(3)} to the variance on average: spot vol{' '}
+          {(100 * Math.sqrt(v0)).toFixed(1)} % becomes{' '}
+          {(100 * Math.sqrt(v0 + summary.varianceJump)).toFixed(1)} % after a typical jump.
+        </p>
+      )}
+    </div>
   );
 }
 
@@ -117,6 +153,7 @@ export function ModelForm({ market, model, errors, onMarket, onModel }: Props) {
             );
           })}
           {group.role === 'variance' && <FellerNote model={model} />}
+          {group.role === 'jumps' && <JumpLawNote model={model} />}
         </Group>
       ))}
     </div>

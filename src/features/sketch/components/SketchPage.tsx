@@ -160,6 +160,7 @@ export function SketchPage() {
         <TargetVols doc={doc} targets={targets} onTargets={(t) => update({ ...doc, targets: t })} />
         <StressPanel
           stress={stress}
+          kind={doc.model.kind}
           hasEvents={events.length > 0}
           issues={smiles.data?.stressIssues ?? []}
           onChange={(s) => update({ ...doc, stress: s })}

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { NO_STRESS, type Stress } from '../../../engine/core';
+import { NO_STRESS, stressFieldsOf, type ModelKind, type Stress } from '../../../engine/core';
 
 interface Control {
   key: keyof Stress;
@@ -40,24 +40,37 @@ const CONTROLS: Control[] = [
   { key: 'volOfVolScale', label: 'Vol of vol', min: 0, max: 4, step: 0.05, format: times },
   { key: 'v0Scale', label: 'Initial variance', min: 0, max: 6, step: 0.05, format: times },
   { key: 'eventSizeScale', label: 'Scheduled moves', min: 0, max: 4, step: 0.05, format: times },
+  { key: 'varianceJumpScale', label: 'Variance jump', min: 0, max: 5, step: 0.05, format: times },
+  {
+    key: 'jumpCorrelationShift',
+    label: 'Jump correlation shift',
+    min: -1,
+    max: 1,
+    step: 0.05,
+    format: (v) => `${v >= 0 ? '+' : ''}${v.toFixed(2)}`,
+  },
 ];
 
 interface Props {
   stress: Stress;
+  /** the model kind: only the sliders that move its parameters are shown */
+  kind: ModelKind;
   /** the scheduled-move slider shows only when the scenario has moves */
   hasEvents: boolean;
   onChange: (s: Stress) => void;
   issues: { path: string; message: string }[];
 }
 
-export function StressPanel({ stress, hasEvents, onChange, issues }: Props) {
+export function StressPanel({ stress, kind, hasEvents, onChange, issues }: Props) {
+  const applies = new Set<string>(stressFieldsOf(kind));
+  if (hasEvents) applies.add('eventSizeScale');
   const baseId = useId();
   return (
     <fieldset className="space-y-3 border-t border-rule pt-3" aria-describedby={`${baseId}-issues`}>
       <legend className="flex w-full items-center justify-between pr-2">
         <span className="text-xs font-semibold uppercase tracking-wide text-muted">Stress</span>
       </legend>
-      {CONTROLS.filter((c) => hasEvents || c.key !== 'eventSizeScale').map((c) => {
+      {CONTROLS.filter((c) => applies.has(c.key)).map((c) => {
         const id = `${baseId}-${c.key}`;
         const value = stress[c.key];
         return (
