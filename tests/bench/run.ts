@@ -7,6 +7,7 @@ import { benchCalibration } from './calibration';
 import { benchMonteCarlo } from './monte-carlo';
 import { benchReplay } from './replay';
 import { benchScheduledMoves } from './scheduled-moves';
+import { benchSvcj } from './svcj';
 import { benchSurface } from './surface';
 import { benchSync } from './sync';
 
@@ -18,6 +19,9 @@ console.table(benchSurface());
 
 console.log('\nScheduled moves and a jump-intensity schedule: the same work with and without.');
 console.table(benchScheduledMoves());
+
+console.log('\nSVCJ (jumps in price and variance) against Bates, the same options.');
+console.table(benchSvcj());
 
 console.log('\nBook revaluation with the gap ladder, one thread (as in one worker).');
 console.table(benchBook());

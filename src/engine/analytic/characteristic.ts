@@ -6,7 +6,7 @@
  */
 import { expectedJumps, type Diffusion, type JumpLaw, type ModelSpec } from '../core/model-spec';
 import { touches, twoPointOutcomes, type ScheduledMove } from '../core/scheduled-moves';
-import { addPriceVarianceJumps, intensitySegments } from './svcj';
+import { intensitySegments, priceVarianceTerm, type PriceVarianceTerm } from './svcj';
 
 export { modelSpec } from '../core/models';
 export type { Diffusion, JumpLaw, ModelSpec } from '../core/model-spec';
@@ -33,19 +33,26 @@ export function logCharacteristic(
       outRe[j] = half * (a * a - b * b - a);
       outIm[j] = half * (2 * a * b - b);
     }
-  } else {
-    hestonLogCf(d, T, wr, wi, outRe, outIm, count);
   }
   const jl = spec.jumps;
   // a time-varying intensity enters European prices only through Λ(T) = ∫₀ᵀ λ(s) ds
   const lt = expectedJumps(spec, T);
+  if (d.type === 'heston') {
+    // SVCJ's jump term needs the Heston kernel's quantities at each w: computed alongside
+    const withJumps =
+      jl.type === 'price-variance' && lt > 0
+        ? priceVarianceTerm(
+            jl,
+            intensitySegments(jl.jumpIntensity, spec.intensitySchedule, T),
+            lt,
+            T,
+          )
+        : null;
+    hestonLogCf(d, T, wr, wi, outRe, outIm, count, withJumps);
+  }
   if (jl.type === 'lognormal' && lt > 0) addLognormalJumps(jl, lt, wr, wi, outRe, outIm, count);
   if (jl.type === 'double-exponential' && lt > 0) {
     addDoubleExponentialJumps(jl, lt, wr, wi, outRe, outIm, count);
-  }
-  if (jl.type === 'price-variance' && lt > 0 && d.type === 'heston') {
-    const segments = intensitySegments(jl.jumpIntensity, spec.intensitySchedule, T);
-    addPriceVarianceJumps(d, jl, segments, lt, wr, wi, outRe, outIm, count);
   }
   if (spec.events) {
     for (const e of spec.events)
@@ -108,8 +115,10 @@ function hestonLogCf(
   outRe: Float64Array,
   outIm: Float64Array,
   count: number,
+  jumpTerm: PriceVarianceTerm | null = null,
 ): void {
   const { v0, kappa, theta, volOfVol: xi, rho } = h;
+  const extra = new Float64Array(2);
   const xi2 = xi * xi;
   const kt = kappa * theta;
   for (let j = 0; j < count; j++) {
@@ -207,6 +216,11 @@ function hestonLogCf(
     const Ci = kt * (mi * T - logi);
     outRe[j] = Cr + v0 * Dr;
     outIm[j] = Ci + v0 * Di;
+    if (jumpTerm) {
+      jumpTerm(a, b, mr, mi, gr, gi, dr, di, omr, omi, extra);
+      outRe[j] += extra[0];
+      outIm[j] += extra[1];
+    }
   }
 }
 

@@ -14,9 +14,8 @@
  * principal branch, every division that could vanish at w = 0 has cancelled, and ρJ·μV → 0 or
  * μV → 0 reduce smoothly to Bates.
  */
-import type { Diffusion, JumpLaw } from '../core/model-spec';
+import type { JumpLaw } from '../core/model-spec';
 
-type Heston = Extract<Diffusion, { type: 'heston' }>;
 type PriceVariance = Extract<JumpLaw, { type: 'price-variance' }>;
 
 /** A stretch of time to go (τ from lo to hi) at one intensity. */
@@ -41,56 +40,37 @@ function log1pOverZ(zr: number, zi: number, out: Float64Array): void {
 }
 
 /**
- * Adds the SVCJ jump term at each w = wr[j] + i·wi[j] to (outRe, outIm), for the intensity
- * segments given (one segment (0, T) at λ without a schedule) and the total Λ(T).
+ * The SVCJ jump term at one w, given the Heston quantities the Heston kernel has just computed
+ * for that w (A = −q/(β + d), g, d and 1 − e^{−dT}), so nothing is computed twice; writes
+ * (re, im) into `out`.
  */
-export function addPriceVarianceJumps(
-  h: Heston,
+export type PriceVarianceTerm = (
+  a: number,
+  b: number,
+  Ar: number,
+  Ai: number,
+  gr: number,
+  gi: number,
+  dr: number,
+  di: number,
+  omTr: number,
+  omTi: number,
+  out: Float64Array,
+) => void;
+
+/** The SVCJ jump term for one expiry T, its intensity segments and total Λ(T). */
+export function priceVarianceTerm(
   jl: PriceVariance,
   segments: readonly IntensitySegment[],
   totalIntensity: number,
-  wr: Float64Array,
-  wi: Float64Array,
-  outRe: Float64Array,
-  outIm: Float64Array,
-  count: number,
-): void {
-  const { kappa, volOfVol: xi, rho } = h;
-  const xi2 = xi * xi;
+  T: number,
+): PriceVarianceTerm {
   const { jumpMean: muS, jumpStdev: sS, varianceJumpMean: muV, jumpCorrelation: rhoJ } = jl;
   const hv = 0.5 * sS * sS;
   const kbar = Math.exp(muS + hv) / (1 - rhoJ * muV) - 1;
   const L = new Float64Array(2);
-  for (let j = 0; j < count; j++) {
-    const a = wr[j];
-    const b = wi[j];
-    if (a === 0 && b === 0) continue;
-    // Heston's q, β, d, A = −q/(β + d), g = A ξ²/(β + d), as in characteristic.ts
-    const qr = a - (a * a - b * b);
-    const qi = b - 2 * a * b;
-    const br = kappa - rho * xi * a;
-    const bi = -rho * xi * b;
-    const zr0 = br * br - bi * bi + xi2 * qr;
-    const zi0 = 2 * br * bi + xi2 * qi;
-    const mod = Math.sqrt(zr0 * zr0 + zi0 * zi0);
-    let dr: number, di: number;
-    if (zr0 >= 0) {
-      dr = Math.sqrt(0.5 * (mod + zr0));
-      di = dr > 0 ? zi0 / (2 * dr) : 0;
-    } else {
-      di = Math.sqrt(0.5 * (mod - zr0));
-      if (zi0 < 0) di = -di;
-      dr = zi0 / (2 * di);
-    }
-    const sr = br + dr;
-    const si = bi + di;
-    const sm = sr * sr + si * si;
-    const isr = sr / sm;
-    const isi = -si / sm;
-    const Ar = -(qr * isr - qi * isi);
-    const Ai = -(qr * isi + qi * isr);
-    const gr = xi2 * (Ar * isr - Ai * isi);
-    const gi = xi2 * (Ar * isi + Ai * isr);
+  const live = segments.filter((seg) => seg.rate > 0 && seg.hi > seg.lo);
+  return (a, b, Ar, Ai, gr, gi, dr, di, omTr, omTi, out) => {
     // a₀ = 1 − wρJμV, P = a₀ − μV A, Q = a₀ g − μV A
     const a0r = 1 - a * rhoJ * muV;
     const a0i = -b * rhoJ * muV;
@@ -111,7 +91,7 @@ export function addPriceVarianceJumps(
     const ni = muV * Ai;
     const cr = (nr * denr + ni * deni) / dm;
     const ci = (ni * denr - nr * deni) / dm;
-    // a₀(1 − g), for z
+    // Q/(a₀(1 − g)), for z
     const er0 = a0r * (1 - gr) + a0i * gi;
     const ei0 = a0i * (1 - gr) - a0r * gi;
     const em = er0 * er0 + ei0 * ei0;
@@ -125,21 +105,26 @@ export function addPriceVarianceJumps(
     const thi = tm * Math.sin(ti0);
     let sumR = 0;
     let sumI = 0;
-    for (const seg of segments) {
-      if (!(seg.rate > 0) || !(seg.hi > seg.lo)) continue;
+    for (const seg of live) {
       // J(hi) − J(lo)
       let Jr = 0;
       let Ji = 0;
-      for (const [tau, sign] of [
-        [seg.hi, 1],
-        [seg.lo, -1],
-      ] as const) {
+      for (let side = 0; side < 2; side++) {
+        const tau = side === 0 ? seg.hi : seg.lo;
         if (tau === 0) continue;
-        // om = 1 − e^{−dτ}, with expm1 and 1 − cos x = 2 sin²(x/2) against cancellation
-        const ex = Math.exp(-dr * tau);
-        const sHalf = Math.sin(0.5 * di * tau);
-        const omr = -(Math.expm1(-dr * tau) * Math.cos(di * tau) - 2 * sHalf * sHalf);
-        const omi = ex * Math.sin(di * tau);
+        const sign = side === 0 ? 1 : -1;
+        // om = 1 − e^{−dτ}: the Heston kernel's at τ = T; else with expm1 and
+        // 1 − cos x = 2 sin²(x/2) against cancellation
+        let omr: number;
+        let omi: number;
+        if (tau === T) {
+          omr = omTr;
+          omi = omTi;
+        } else {
+          const sHalf = Math.sin(0.5 * di * tau);
+          omr = -(Math.expm1(-dr * tau) * Math.cos(di * tau) - 2 * sHalf * sHalf);
+          omi = Math.exp(-dr * tau) * Math.sin(di * tau);
+        }
         const zr = qer * omr - qei * omi;
         const zi = qer * omi + qei * omr;
         log1pOverZ(zr, zi, L);
@@ -155,9 +140,9 @@ export function addPriceVarianceJumps(
       sumR += seg.rate * (thr * Jr - thi * Ji - (seg.hi - seg.lo));
       sumI += seg.rate * (thr * Ji + thi * Jr);
     }
-    outRe[j] += sumR - a * kbar * totalIntensity;
-    outIm[j] += sumI - b * kbar * totalIntensity;
-  }
+    out[0] = sumR - a * kbar * totalIntensity;
+    out[1] = sumI - b * kbar * totalIntensity;
+  };
 }
 
 /** The intensity schedule over [0, T] as stretches of time to go τ = T − s, each at one rate. */
