@@ -6,11 +6,11 @@
  * same process, alternated, so the machine's load falls on both.
  */
 import { priceOptions } from '../../src/engine/analytic';
-import { DEFAULT_BATES, forwardPrice, type Market, type Model } from '../../src/engine/core';
+import { DEFAULT_BATES, type Market, type Model } from '../../src/engine/core';
+import { surfaceOptions } from './surface-options';
 import { simulate, type SimulationSettings } from '../../src/engine/paths';
 import { fmt, medianMs } from './timing';
 
-const DAYS = [1, 7, 14, 30, 61, 91, 182, 365];
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
 const plain: Model = DEFAULT_BATES;
 const dated: Model = {
@@ -29,18 +29,7 @@ const scheduled: Model = {
   ],
 };
 
-const options = DAYS.flatMap((d) => {
-  const T = d / 365;
-  const sd = 0.2 * Math.sqrt(T);
-  return Array.from({ length: 41 }, (_, i) => {
-    const k = sd * (-3.5 + (7 * i) / 40);
-    return {
-      type: k < 0 ? ('put' as const) : ('call' as const),
-      strike: forwardPrice(market, T) * Math.exp(k),
-      expiry: T,
-    };
-  });
-});
+const options = surfaceOptions(market);
 
 const mc: SimulationSettings = {
   horizon: 0.25,

@@ -4,10 +4,10 @@
  * run (target: at most 1.5×).
  */
 import { priceOptions } from '../../src/engine/analytic';
-import { DEFAULT_BATES, forwardPrice, type Market, type Model } from '../../src/engine/core';
+import { DEFAULT_BATES, type Market, type Model } from '../../src/engine/core';
+import { surfaceOptions } from './surface-options';
 import { fmt, medianMs } from './timing';
 
-const DAYS = [1, 7, 14, 30, 61, 91, 182, 365];
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
 const bates: Model = DEFAULT_BATES;
 const svcj: Model = {
@@ -17,18 +17,7 @@ const svcj: Model = {
   jumpCorrelation: -0.5,
 };
 
-const options = DAYS.flatMap((d) => {
-  const T = d / 365;
-  const sd = 0.2 * Math.sqrt(T);
-  return Array.from({ length: 41 }, (_, i) => {
-    const k = sd * (-3.5 + (7 * i) / 40);
-    return {
-      type: k < 0 ? ('put' as const) : ('call' as const),
-      strike: forwardPrice(market, T) * Math.exp(k),
-      expiry: T,
-    };
-  });
-});
+const options = surfaceOptions(market);
 
 export function benchSvcj(): Record<string, string>[] {
   const batesMs = medianMs(() => priceOptions(market, bates, options), 15);

@@ -81,18 +81,27 @@ export interface JumpDraw {
   varianceJump: number;
 }
 
-/** The jump draw of a law, or null for a model without jumps. */
+/**
+ * The jump draw of a law, or null for a model without jumps. SVCJ's jumps are exact (Duffie,
+ * Pan & Singleton 2000): per jump Z_V = −μV ln U (exponential) and Z_S = μS + ρJ·Z_V + σS·N.
+ */
 export function jumpSampler(jl: JumpLaw): JumpDraw | null {
   if (jl.type === 'none') return null;
-  if (jl.type === 'price-variance') return priceVarianceDraw(jl);
-  const size =
-    jl.type === 'lognormal'
-      ? (rng: BlockRandom) => jl.jumpMean + jl.jumpStdev * rng.normal()
-      : (rng: BlockRandom) =>
-          rng.uniform() < jl.upProbability
-            ? -jl.upMean * Math.log(rng.uniform())
-            : jl.downMean * Math.log(rng.uniform());
+  let size: (rng: BlockRandom) => number;
+  if (jl.type === 'lognormal') size = (rng) => jl.jumpMean + jl.jumpStdev * rng.normal();
+  else if (jl.type === 'double-exponential')
+    size = (rng) =>
+      rng.uniform() < jl.upProbability
+        ? -jl.upMean * Math.log(rng.uniform())
+        : jl.downMean * Math.log(rng.uniform());
+  else
+    size = (rng) => {
+      const zv = -jl.varianceJumpMean * Math.log(rng.uniform());
+      draw.varianceJump += zv;
+      return jl.jumpMean + jl.jumpCorrelation * zv + jl.jumpStdev * rng.normal();
+    };
   const draw = ((rng: BlockRandom, lam: number, p0: number) => {
+    draw.varianceJump = 0;
     if (!(lam > 0)) return 0;
     // Poisson count by inversion (λΔ is small), then the sum of that many log-jumps
     let u = rng.uniform();
@@ -104,32 +113,6 @@ export function jumpSampler(jl: JumpLaw): JumpDraw | null {
       k++;
       p *= lam / k;
       total += size(rng);
-    }
-    return total;
-  }) as JumpDraw;
-  draw.varianceJump = 0;
-  return draw;
-}
-
-/**
- * SVCJ jumps, exact (Duffie, Pan & Singleton 2000): per jump Z_V = −μV ln U (exponential) and
- * Z_S = μS + ρJ·Z_V + σS·N.
- */
-function priceVarianceDraw(jl: Extract<JumpLaw, { type: 'price-variance' }>): JumpDraw {
-  const draw = ((rng: BlockRandom, lam: number, p0: number) => {
-    draw.varianceJump = 0;
-    if (!(lam > 0)) return 0;
-    let u = rng.uniform();
-    let k = 0;
-    let p = p0;
-    let total = 0;
-    while (u > p && k < 50) {
-      u -= p;
-      k++;
-      p *= lam / k;
-      const zv = -jl.varianceJumpMean * Math.log(rng.uniform());
-      draw.varianceJump += zv;
-      total += jl.jumpMean + jl.jumpCorrelation * zv + jl.jumpStdev * rng.normal();
     }
     return total;
   }) as JumpDraw;

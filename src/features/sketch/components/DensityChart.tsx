@@ -16,10 +16,12 @@ export interface PointMass {
  * An up-or-down scheduled move is two point masses: they are drawn as spikes at their log-moves,
  * since the curve alone is smooth only because the diffusion spreads them.
  */
+const NO_POINT_MASSES: PointMass[] = [];
+
 export function DensityChart({
   density,
   title,
-  pointMasses = [],
+  pointMasses = NO_POINT_MASSES,
 }: {
   density: DensityCurve;
   title: string;
