@@ -4,6 +4,7 @@
  * stdout.
  */
 import { calibrate, price, replay, revalue, simulate, smile } from './commands';
+import { forwards } from './forwards';
 import { CliError, fail, readRequest } from './io';
 
 const COMMANDS: Record<string, (request: unknown) => unknown> = {
@@ -13,6 +14,7 @@ const COMMANDS: Record<string, (request: unknown) => unknown> = {
   calibrate,
   simulate,
   replay,
+  forwards,
 };
 
 function main(argv: string[]) {

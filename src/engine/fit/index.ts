@@ -8,3 +8,4 @@ export * from './quotes-csv';
 export * from './solve-to-targets';
 export * from './demo-chain';
 export * from './parameter-errors';
+export * from './forwards';
