@@ -7,7 +7,7 @@ import {
   smileSurface,
   type SmileSurface,
 } from '../src/engine/analytic';
-import { calibrate as calibrateModel, completeGuess } from '../src/engine/fit';
+import { arbitrageFlags, calibrate as calibrateModel, completeGuess } from '../src/engine/fit';
 import {
   parametersOf,
   discountFactor,
@@ -301,6 +301,10 @@ export function calibrate(request: unknown) {
     onBounds: r.onBounds,
     elapsedMs: r.elapsedMs,
     residuals: r.residuals,
+    // static-arbitrage flags on the quotes as given (before the fit), at the market's forwards
+    arbitrage: arbitrageFlags(
+      quotes.map((q) => ({ ...q, forward: forwardPrice(market, q.expiry) })),
+    ),
     standardErrors: Object.fromEntries(
       r.errors.names.map((n, i) => [n, r.errors.standardErrors[i]]),
     ),

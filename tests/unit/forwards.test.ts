@@ -1,7 +1,7 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 import { blackPrice } from '../../src/engine/analytic';
-import { chainForwards, type ChainQuote } from '../../src/engine/fit';
+import { chainForwards, prepareChain, spreadErrors, type ChainQuote } from '../../src/engine/fit';
 
 /**
  * A chain made from Black-Scholes prices (common practice: put–call parity holds exactly for
@@ -81,5 +81,29 @@ describe('forwards from put–call parity', () => {
     expect(reasons).toContain('zero bid');
     expect(reasons).toContain('crossed');
     expect(reasons).toContain('locked');
+  });
+});
+
+describe('a chain made ready for a fit', () => {
+  it('keeps the out-of-the-money side at each strike, at the parity forward, with bid and ask vols around the mid', () => {
+    const { truth, quotes } = chain('prepared', false);
+    const prepared = prepareChain(quotes);
+    expect(prepared.forwards).toHaveLength(6);
+    for (const q of prepared.quotes) {
+      const f = prepared.forwards.find((e) => e.expiry === q.expiry)!;
+      expect(q.type).toBe(q.strike < f.forward ? 'put' : 'call');
+      if (q.bidVol !== null) expect(q.bidVol).toBeLessThanOrEqual(q.impliedVol);
+      expect(q.askVol!).toBeGreaterThanOrEqual(q.impliedVol);
+      // Black-Scholes at 20 % with noise inside the spread: the mid vol is close to 20 %
+      expect(Math.abs(q.impliedVol - 0.2)).toBeLessThan(0.02);
+    }
+    expect(prepared.quotes.length).toBeGreaterThan(6 * 20);
+    // the model at the true vol sits inside every spread
+    const within = spreadErrors(
+      prepared.quotes,
+      prepared.quotes.map(() => 0.2),
+    ).withinSpread;
+    expect(within.every((w) => w.share > 0.9)).toBe(true);
+    expect(truth).toHaveLength(6);
   });
 });

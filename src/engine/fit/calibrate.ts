@@ -41,6 +41,11 @@ export interface CalibrationRequest {
   fixed?: string[];
   /** scheduled moves (indices into `model.events`) whose size is fitted too */
   fitEventSizes?: number[];
+  /**
+   * anchor the fit to an earlier one: a penalty √weight · (θ − θ_prev)/(box width) per fitted
+   * coordinate joins the residuals (vol points); weight 0 is the plain fit
+   */
+  anchor?: { model: Model; weight: number };
   quotes: VolQuote[];
   weights?: 'uniform' | 'vega';
   /** multi-start: Halton points screened, and how many of the best are refined */
@@ -68,6 +73,8 @@ export interface CalibrationResult {
   residuals: Residual[];
   /** how well the quotes pin each fitted coordinate down (from the Jacobian at the optimum) */
   errors: ParameterErrors;
+  /** with an anchor: the penalty part of the cost at the optimum (vol points²) */
+  anchorPenalty?: number;
 }
 
 const TRIAL_COS: CosSettings = { ...DEFAULT_COS_SETTINGS, width: 10, tailTolerance: 1e-11 };
@@ -144,17 +151,24 @@ export function calibrate(
       names,
       Array.from(z, (v, i) => toBounded(v, bounds[i])),
     );
+  const anchored = req.anchor && req.anchor.weight > 0 ? req.anchor : null;
+  const anchorValues = anchored ? names.map((n) => coordinateValue(anchored.model, n)) : [];
+  const anchorScale = anchored ? Math.sqrt(anchored.weight) : 0;
   const residualsOf = (z: Float64Array) => {
     const vols = modelVols(req.market, toModel(z), req.quotes, TRIAL_COS);
     // an undefined model vol counts as zero vol
-    return Float64Array.from(
-      req.quotes,
-      (q, i) => 100 * ((vols[i] ?? 0) - q.impliedVol) * sqrtW[i],
-    );
+    const r = Float64Array.from({ length: req.quotes.length + anchorValues.length }, (_, i) => {
+      if (i < req.quotes.length)
+        return 100 * ((vols[i] ?? 0) - req.quotes[i].impliedVol) * sqrtW[i];
+      const j = i - req.quotes.length;
+      const b = bounds[j];
+      return (anchorScale * (toBounded(z[j], b) - anchorValues[j])) / (b.hi - b.lo);
+    });
+    return r;
   };
   const cost = (z: Float64Array) => residualsOf(z).reduce((a, r) => a + r * r, 0);
   const guess = Float64Array.from(names, (n, i) =>
-    toUnbounded(coordinateValue(req.model, n), bounds[i]),
+    toUnbounded(coordinateValue(anchored ? anchored.model : req.model, n), bounds[i]),
   );
   const screen = req.screen ?? 24;
   const starts: Float64Array[] = [guess];
@@ -201,8 +215,19 @@ export function calibrate(
     },
     bounds,
   );
+  const quality = report(req, model);
   return {
-    ...report(req, model),
+    ...quality,
+    ...(anchored
+      ? {
+          anchorPenalty:
+            anchorScale ** 2 *
+            names.reduce((acc, _, j) => {
+              const d = (theta[j] - anchorValues[j]) / (bounds[j].hi - bounds[j].lo);
+              return acc + d * d;
+            }, 0),
+        }
+      : {}),
     errors,
     iterations,
     evaluations,

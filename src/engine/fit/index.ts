@@ -9,3 +9,5 @@ export * from './solve-to-targets';
 export * from './demo-chain';
 export * from './parameter-errors';
 export * from './forwards';
+export * from './arbitrage';
+export * from './chain-quotes';
