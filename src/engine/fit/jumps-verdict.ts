@@ -140,7 +140,9 @@ export function jumpsVerdict(
   const versusSvcj =
     cB.bic - cS.bic > 10
       ? ` Jumps in the variance earn their ${kS - kB} parameters too: BIC falls by ${(cB.bic - cS.bic).toFixed(1)} from Bates to SVCJ.`
-      : ` Jumps in the variance add little: BIC moves by ${(cS.bic - cB.bic).toFixed(1)} from Bates to SVCJ.`;
+      : cS.bic > cB.bic
+        ? ` Jumps in the variance do not pay here: BIC rises by ${(cS.bic - cB.bic).toFixed(1)} from Bates to SVCJ.`
+        : ` Jumps in the variance add little: BIC falls by only ${(cB.bic - cS.bic).toFixed(1)} from Bates to SVCJ.`;
   return {
     heston,
     bates,
