@@ -2,6 +2,7 @@
 import type {
   CalibrationRequest,
   CalibrationResult,
+  FitHistoryEntry,
   JumpsVerdict,
   TargetSolution,
   TargetVol,
@@ -28,4 +29,9 @@ export interface FitApi {
     },
     progress: Progress,
   ): JumpsVerdict;
+  /** the invented demo chain over the last days, each fitted: a history to draw */
+  demoHistory(
+    request: { market: Market; model: Model; valuationDate: string; days: number },
+    progress: Progress,
+  ): FitHistoryEntry[];
 }

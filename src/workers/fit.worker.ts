@@ -1,5 +1,5 @@
 import { expose } from 'comlink';
-import { calibrate, jumpsVerdict, solveToTargets } from '../engine/fit';
+import { buildDemoHistory, calibrate, jumpsVerdict, solveToTargets } from '../engine/fit';
 import type { FitApi } from './fit-api';
 
 const api: FitApi = {
@@ -7,6 +7,7 @@ const api: FitApi = {
   solveTargets: (r, progress) =>
     solveToTargets(r.market, r.model, r.stress, r.targets, r.also, (f) => void progress(f)),
   verdict: (request, progress) => jumpsVerdict({ ...request, progress: (f) => void progress(f) }),
+  demoHistory: (request, progress) => buildDemoHistory(request, (f) => void progress(f)),
 };
 
 expose(api);

@@ -1,8 +1,10 @@
 /**
- * An invented option chain for the Fit page's first visit: out-of-the-money puts and calls on
- * a scenario's market, priced by its model at six expiries from one week to six months, with
- * seeded noise on the vols (a tenth of a vol point) and a bid/ask around each price on a
- * 0.05 tick. Fitting it recovers the model it came from, within the noise.
+ * An invented option chain for the Fit page's first visit: calls and puts at every strike on a
+ * scenario's market, priced by its model at six expiries from one week to six months, with
+ * seeded noise on the vols (a tenth of a vol point, the same for the call and the put of a
+ * strike, so put–call parity holds at the mids) and a bid/ask around each price on a 0.05 tick.
+ * Its forwards are read back by parity; fitting it recovers the model it came from, within the
+ * noise.
  */
 import seedrandom from 'seedrandom';
 import { blackPrice } from '../analytic/black';
@@ -53,23 +55,19 @@ export function demoChainCsv(req: DemoChainRequest): string {
       const vol = priced[i].impliedVol;
       if (vol === null) return;
       const sigma = vol + (NOISE_VOL_POINTS / 100) * normal();
-      const inputs = {
-        forward: F,
-        strike: o.strike,
-        expiry: T,
-        discount: df,
-        isCall: o.type === 'call',
-      };
-      const mid = blackPrice({ ...inputs, sigma });
-      const d1 = Math.log(F / o.strike) / (sigma * Math.sqrt(T)) + 0.5 * sigma * Math.sqrt(T);
-      const vega = df * F * normPdf(d1) * Math.sqrt(T);
-      const half = Math.max(TICK, vega * (HALF_SPREAD_VOL_POINTS / 100));
-      const bid = Math.floor((mid - half) / TICK) * TICK;
-      const ask = Math.ceil((mid + half) / TICK) * TICK;
-      if (bid < TICK) return; // no bid: not quoted
-      rows.push(
-        `${addDays(req.valuationDate, days)},${o.strike},${o.type},${bid.toFixed(2)},${ask.toFixed(2)}`,
-      );
+      for (const isCall of [true, false]) {
+        const inputs = { forward: F, strike: o.strike, expiry: T, discount: df, isCall };
+        const mid = blackPrice({ ...inputs, sigma });
+        const d1 = Math.log(F / o.strike) / (sigma * Math.sqrt(T)) + 0.5 * sigma * Math.sqrt(T);
+        const vega = df * F * normPdf(d1) * Math.sqrt(T);
+        const half = Math.max(TICK, vega * (HALF_SPREAD_VOL_POINTS / 100));
+        const bid = Math.floor((mid - half) / TICK) * TICK;
+        const ask = Math.ceil((mid + half) / TICK) * TICK;
+        if (bid < TICK) continue; // no bid: not quoted
+        rows.push(
+          `${addDays(req.valuationDate, days)},${o.strike},${isCall ? 'call' : 'put'},${bid.toFixed(2)},${ask.toFixed(2)}`,
+        );
+      }
     });
   }
   return rows.join('\n') + '\n';

@@ -11,3 +11,4 @@ export * from './parameter-errors';
 export * from './forwards';
 export * from './arbitrage';
 export * from './chain-quotes';
+export * from './fit-history';

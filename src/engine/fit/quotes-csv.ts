@@ -11,6 +11,9 @@ import { expiryYears } from '../core/dates';
 import type { RowIssue } from '../core/validate';
 import type { VolQuote } from './calibrate';
 import type { Market } from '../core/types';
+import { arbitrageFlags, type ArbitrageFlag } from './arbitrage';
+import { prepareChain, type PreparedChain } from './chain-quotes';
+import type { ChainQuote } from './forwards';
 
 export const MAX_QUOTES_FILE_BYTES = 2 * 1024 * 1024;
 export const MAX_QUOTES = 5000;
@@ -24,6 +27,26 @@ export interface ParsedQuotes {
    * rows that give a forward), when any row does.
    */
   impliedSpot?: number;
+  /**
+   * A chain of calls and puts with bid and ask (and no forward column): the forwards read off it
+   * by put–call parity with the carry they imply, the quotes dropped, and the out-of-the-money
+   * quotes used (with their bid and ask vols) in `quotes`
+   */
+  chain?: Omit<PreparedChain, 'quotes'> & { carry: number[]; quotes: PreparedChain['quotes'] };
+  /** static-arbitrage flags on the quotes kept (at their forwards) */
+  arbitrage: ArbitrageFlag[];
+}
+
+export interface QuoteFileOptions {
+  /** read the discount from this rate instead of fitting it by parity (chains only) */
+  rate?: number;
+}
+
+/** Arbitrage flags of vol quotes, each at its own forward or the market's. */
+function flagsOf(quotes: readonly VolQuote[], market: Market): ArbitrageFlag[] {
+  return arbitrageFlags(
+    quotes.map((q) => ({ ...q, forward: q.forward ?? forwardPrice(market, q.expiry) })),
+  );
 }
 
 /** How far (relative) the quotes' spot may stand from the scenario's before it is pointed out. */
@@ -81,14 +104,16 @@ function header(h: string): string {
   return ALIASES[key] ?? key;
 }
 
-export function parseQuotesCsv(text: string, market: Market, valuationDate: string): ParsedQuotes {
+export function parseQuotesCsv(
+  text: string,
+  market: Market,
+  valuationDate: string,
+  options: QuoteFileOptions = {},
+): ParsedQuotes {
+  const none = { quotes: [], issues: [], arbitrage: [] };
   if (text.length > MAX_QUOTES_FILE_BYTES)
-    return {
-      quotes: [],
-      issues: [],
-      fileError: `the file is over ${MAX_QUOTES_FILE_BYTES / 1024 / 1024} MB`,
-    };
-  if (text.trim() === '') return { quotes: [], issues: [], fileError: 'the file is empty' };
+    return { ...none, fileError: `the file is over ${MAX_QUOTES_FILE_BYTES / 1024 / 1024} MB` };
+  if (text.trim() === '') return { ...none, fileError: 'the file is empty' };
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
     header: true,
     skipEmptyLines: false,
@@ -106,8 +131,7 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
     )
   ) {
     return {
-      quotes: [],
-      issues: [],
+      ...none,
       fileError: `the header must name expiry, strike and either impliedVol, or type with price (or bid and ask); found: ${cols.join(', ') || 'nothing'} (is the delimiter a comma, semicolon or tab?)`,
     };
   }
@@ -115,15 +139,20 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
     .map((f, i) => ({ line: i + 2, f }))
     .filter((r) => Object.values(r.f).some((v) => typeof v === 'string' && v.trim() !== ''));
   if (rows.length > MAX_QUOTES)
-    return {
-      quotes: [],
-      issues: [],
-      fileError: `the file has ${rows.length} rows; the limit is ${MAX_QUOTES}`,
-    };
+    return { ...none, fileError: `the file has ${rows.length} rows; the limit is ${MAX_QUOTES}` };
   const quotes: VolQuote[] = [];
   const issues: RowIssue[] = [];
   const seen = new Set<string>();
   const spots: number[] = [];
+  // a chain (both sides with bid and ask, no forward of its own) is read by put–call parity
+  const chainFile =
+    cols.includes('bid') &&
+    cols.includes('ask') &&
+    !cols.includes('impliedvol') &&
+    !cols.includes('price') &&
+    !['forward', 'rate', 'dividend'].some((c) => cols.includes(c));
+  const chainRows: ChainQuote[] = [];
+  const chainLines: number[] = [];
   for (const { line, f } of rows) {
     const bad = (field: string, message: string) => issues.push({ line, field, message });
     const T = expiryYears(f.expiry ?? '', valuationDate);
@@ -176,6 +205,33 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
       let price: number;
       const bid = Number((f.bid ?? '').trim());
       const ask = Number((f.ask ?? '').trim());
+      if (chainFile) {
+        // a chain row is read with the others by parity; crossed, locked and zero-bid rows are
+        // listed as dropped there
+        if (
+          (f.bid ?? '').trim() === '' ||
+          (f.ask ?? '').trim() === '' ||
+          !(bid >= 0) ||
+          !(ask >= 0)
+        ) {
+          bad('price', 'needs a bid and an ask, both numbers of at least 0');
+          continue;
+        }
+        const key = `${T.toFixed(8)}|${K}|${type[0]}`;
+        if (seen.has(key)) {
+          bad('strike', 'duplicates an earlier quote at the same expiry and strike');
+          continue;
+        }
+        seen.add(key);
+        chainRows.push({
+          expiry: T,
+          strike: K,
+          type: type.startsWith('c') ? 'call' : 'put',
+          bid,
+          ask,
+        });
+        continue;
+      }
       if ((f.price ?? '').trim() !== '') price = Number(f.price!.trim());
       else if (
         Number.isFinite(bid) &&
@@ -222,12 +278,95 @@ export function parseQuotesCsv(text: string, market: Market, valuationDate: stri
         : { strike: K, expiry: T, impliedVol: vol, weight },
     );
   }
+  if (chainFile && hasPairs(chainRows)) return chainQuotes(chainRows, issues, market, options);
+  // bid/ask rows without both sides: each mid read against the market's forward, as always
+  chainRows.forEach((r, i) => {
+    const line = chainLines[i];
+    if (!(r.ask >= r.bid) || !(r.ask > 0)) {
+      issues.push({ line, field: 'price', message: 'needs a bid and an ask with ask ≥ bid' });
+      return;
+    }
+    const price = 0.5 * (r.bid + r.ask);
+    const iv = impliedVol({
+      price,
+      forward: forwardPrice(market, r.expiry),
+      strike: r.strike,
+      expiry: r.expiry,
+      discount: discountFactor(market, r.expiry),
+      isCall: r.type === 'call',
+    }).vol;
+    if (iv === null) {
+      issues.push({
+        line,
+        field: 'price',
+        message: 'is outside the no-arbitrage bounds for this market',
+      });
+      return;
+    }
+    quotes.push({
+      strike: r.strike,
+      expiry: r.expiry,
+      impliedVol: iv,
+      weight: r.ask > r.bid ? 1 / Math.max(r.ask - r.bid, 1e-6 * price) : 1,
+    });
+  });
+  issues.sort((a, b) => a.line - b.line);
   // spread weights are relative: scale so they average 1
   const mean = quotes.reduce((a, q) => a + (q.weight ?? 1), 0) / Math.max(1, quotes.length);
   quotes.forEach((q) => (q.weight = (q.weight ?? 1) / mean));
-  if (spots.length === 0) return { quotes, issues };
+  const arbitrage = flagsOf(quotes, market);
+  if (spots.length === 0) return { quotes, issues, arbitrage };
   spots.sort((a, b) => a - b);
   const m = spots.length >> 1;
   const impliedSpot = spots.length % 2 ? spots[m] : 0.5 * (spots[m - 1] + spots[m]);
-  return { quotes, issues, impliedSpot };
+  return { quotes, issues, impliedSpot, arbitrage };
+}
+
+const medianOf = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : 0.5 * (s[m - 1] + s[m]);
+};
+
+/** Whether some expiry quotes both a call and a put at three strikes or more. */
+function hasPairs(rows: readonly ChainQuote[]): boolean {
+  const sides = new Map<string, Set<string>>();
+  for (const r of rows) {
+    const key = `${r.expiry}|${r.strike}`;
+    (sides.get(key) ?? sides.set(key, new Set()).get(key)!).add(r.type);
+  }
+  const pairsByExpiry = new Map<number, number>();
+  for (const [key, types] of sides)
+    if (types.size === 2) {
+      const T = Number(key.split('|')[0]);
+      pairsByExpiry.set(T, (pairsByExpiry.get(T) ?? 0) + 1);
+    }
+  return [...pairsByExpiry.values()].some((n) => n >= 3);
+}
+
+/**
+ * The chain's forwards by parity, its out-of-the-money quotes at them, the carry each forward
+ * implies (q = r − ln(F/S)/T with r = −ln(D)/T) and the spot they imply under the market's
+ * carry (for the mismatch check).
+ */
+function chainQuotes(
+  rows: readonly ChainQuote[],
+  issues: RowIssue[],
+  market: Market,
+  options: QuoteFileOptions,
+): ParsedQuotes {
+  const prepared = prepareChain(rows, options.rate);
+  const carry = prepared.forwards.map(
+    (f) => -Math.log(f.discount) / f.expiry - Math.log(f.forward / market.spot) / f.expiry,
+  );
+  const spots = prepared.forwards.map(
+    (f) => (f.forward * market.spot) / forwardPrice(market, f.expiry),
+  );
+  return {
+    quotes: prepared.quotes,
+    issues,
+    chain: { ...prepared, carry },
+    arbitrage: flagsOf(prepared.quotes, market),
+    ...(spots.length > 0 ? { impliedSpot: medianOf(spots) } : {}),
+  };
 }

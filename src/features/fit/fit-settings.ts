@@ -13,6 +13,8 @@ export const fitSettingsSchema = z.object({
   fitEventSizes: z.boolean(),
   /** the comparison also tries Heston with one scheduled move on this date ('' for none) */
   moveDate: z.union([z.literal(''), isoDateSchema]),
+  /** weight of the penalty on the change from the last fit in the history (0: none) */
+  anchorWeight: z.number({ error: 'must be a number' }).min(0, 'must be 0 or more').max(1e6),
 });
 
 export type FitSettings = z.infer<typeof fitSettingsSchema>;
@@ -23,4 +25,5 @@ export const DEFAULT_FIT_SETTINGS: FitSettings = {
   fixed: [],
   fitEventSizes: false,
   moveDate: '',
+  anchorWeight: 0,
 };

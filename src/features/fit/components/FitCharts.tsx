@@ -12,8 +12,27 @@ import { formatTenor } from '../../../components/format';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 
-/** Quotes (dots) against the fitted smile (line), one panel per expiry, and a residual map. */
-export function FitCharts({ residuals, compare }: { residuals: Residual[]; compare?: Residual[] }) {
+/** A quote's bid and ask vols, for the bars drawn behind its mid. */
+export interface SpreadBar {
+  expiry: number;
+  strike: number;
+  bidVol: number | null;
+  askVol: number | null;
+}
+
+/**
+ * Quotes (dots, with bid–ask bars when the chain gives them) against the fitted smile (line),
+ * one panel per expiry, and a residual map.
+ */
+export function FitCharts({
+  residuals,
+  compare,
+  spreads,
+}: {
+  residuals: Residual[];
+  compare?: Residual[];
+  spreads?: SpreadBar[];
+}) {
   const theme = useTheme();
   const figure = useMemo(() => {
     const t = chartTheme(theme);
@@ -35,6 +54,20 @@ export function FitCharts({ residuals, compare }: { residuals: Residual[]; compa
         list.filter((r) => r.expiry === T).sort((a, b) => a.strike - b.strike);
       const here = pick(residuals);
       const axes = { xaxis: `x${suffix}`, yaxis: `y${suffix}`, showlegend: i === 0 };
+      const bars = (spreads ?? []).filter(
+        (b) => b.expiry === T && b.bidVol !== null && b.askVol !== null,
+      );
+      if (bars.length > 0)
+        data.push({
+          type: 'scatter',
+          mode: 'lines',
+          x: bars.flatMap((b) => [b.strike, b.strike, null]),
+          y: bars.flatMap((b) => [100 * b.bidVol!, 100 * b.askVol!, null]),
+          name: 'bid–ask',
+          line: { color: t.muted, width: 3 },
+          opacity: 0.45,
+          ...axes,
+        } as Data);
       data.push({
         type: 'scatter',
         mode: 'markers',
@@ -75,7 +108,7 @@ export function FitCharts({ residuals, compare }: { residuals: Residual[]; compa
       (layout.annotations as unknown[]).push(panelTitle(suffix, formatTenor(T), 1.18));
     });
     return { data, layout: layout as Partial<Layout> };
-  }, [residuals, compare, theme]);
+  }, [residuals, compare, spreads, theme]);
   return <PlotlyChart data={figure.data} layout={figure.layout} />;
 }
 

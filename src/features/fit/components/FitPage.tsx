@@ -2,18 +2,26 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link } from 'react-router';
 import { CsvInput } from '../../../components/CsvInput';
-import { formatNumber } from '../../../components/format';
+import { formatNumber, formatTenor } from '../../../components/format';
 import { ProgressBar } from '../../../components/ProgressBar';
 import { RowIssues } from '../../../components/RowIssues';
 import { ScenarioSelect } from '../../../components/ScenarioSelect';
 import { ToolPage } from '../../../components/ToolPage';
-import { modelShortLabel, type Market } from '../../../engine/core';
+import { modelShortLabel, riskFreeRate, type Market } from '../../../engine/core';
 import {
   MAX_QUOTES_FILE_BYTES,
   parseQuotesCsv,
   SPOT_MISMATCH,
+  fitHistoryOf,
+  historyEntry,
+  spreadErrors,
+  withEntry,
+  type ChainVolQuote,
   type ParsedQuotes,
 } from '../../../engine/fit';
+import { ArbitrageList, ForwardsTable } from './ChainPanel';
+import { FitHistoryChart } from './FitHistoryChart';
+import { useDemoHistory } from '../hooks/use-demo-history';
 import { localScenariosQuery, useSaveScenario } from '../../../store/hooks';
 import type { FitSettings } from '../fit-settings';
 import { useFitJob } from '../hooks/use-fit-job';
@@ -36,9 +44,14 @@ export function FitPage() {
   const [ranMarket, setRanMarket] = useState<Market | null>(null);
   const [settings, setSettings] = useState<FitSettings | null>(null);
   const [savedId, setSavedId] = useState<string | null>(null);
+  // chains: discount from the scenario's rate instead of parity; flagged quotes left out
+  const [useRate, setUseRate] = useState(false);
+  const [dropFlagged, setDropFlagged] = useState(false);
   const job = useFitJob();
 
   const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
+  const history = source ? fitHistoryOf(source.document) : [];
+  const demoHistory = useDemoHistory();
   const loadDemoChain = useDemoChain(source?.document);
   if (scenarios.isPending) return <p className="text-muted">Opening…</p>;
   if (!source)
@@ -47,15 +60,28 @@ export function FitPage() {
         Open Sketch once so that this device has a scenario for the market and the starting point.
       </p>
     );
-  const quotes = parsed?.quotes ?? [];
+  const flagged = new Set(
+    (parsed?.arbitrage ?? []).flatMap((f) => f.quotes.map((q) => `${q.expiry}|${q.strike}`)),
+  );
+  const quotes = (parsed?.quotes ?? []).filter(
+    (q) => !dropFlagged || !flagged.has(`${q.expiry}|${q.strike}`),
+  );
+  const chainQuotes = parsed?.chain ? (quotes as ChainVolQuote[]) : null;
   const { progress, outcome, fitted, error } = job;
   const market: Market =
     spotFromQuotes === null
       ? source.document.market
       : { ...source.document.market, spot: spotFromQuotes };
-  const readQuotes = (t: string, m: Market) => {
+  const readQuotes = (t: string, m: Market, fromRate = useRate) => {
     setText(t);
-    setParsed(parseQuotesCsv(t, m, source.document.valuationDate));
+    setParsed(
+      parseQuotesCsv(
+        t,
+        m,
+        source.document.valuationDate,
+        fromRate ? { rate: riskFreeRate(m, 1) } : {},
+      ),
+    );
   };
   const implied = parsed?.impliedSpot;
   const mismatch =
@@ -75,6 +101,7 @@ export function FitPage() {
       quotes,
       settings: chosen,
       valuationDate: source.document.valuationDate,
+      history,
     });
   };
 
@@ -99,6 +126,30 @@ export function FitPage() {
     });
     setSavedId(id);
   };
+
+  /** The fit joins the source scenario's history (kept in its document, so it syncs). */
+  const addToHistory = async () => {
+    if (!fitted) return;
+    const entry = historyEntry(source.document.valuationDate, fitted, quotes);
+    await save.mutateAsync({ ...source.document, fitHistory: withEntry(history, entry) });
+  };
+  const buildHistory = async () => {
+    const entries = await demoHistory.run(source.document);
+    if (entries)
+      await save.mutateAsync({
+        ...source.document,
+        fitHistory: entries.reduce((h, e) => withEntry(h, e), history),
+      });
+  };
+
+  // the fit ran on these quotes in this order: residuals line up with them
+  const spread =
+    fitted && chainQuotes && fitted.residuals.length === chainQuotes.length
+      ? spreadErrors(
+          chainQuotes,
+          fitted.residuals.map((r) => r.model),
+        )
+      : null;
 
   return (
     <ToolPage
@@ -145,7 +196,7 @@ export function FitPage() {
         testId="quotes-file"
         label="Quotes CSV"
         onText={(t) => readQuotes(t, market)}
-        onTooLarge={(m) => setParsed({ quotes: [], issues: [], fileError: m })}
+        onTooLarge={(m) => setParsed({ quotes: [], issues: [], arbitrage: [], fileError: m })}
         sample={{
           label: 'Load the demo chain',
           load: loadDemoChain,
@@ -182,6 +233,27 @@ export function FitPage() {
           </button>
         </div>
       )}
+      {parsed?.chain && (
+        <label className="flex items-center gap-2 text-sm">
+          <input
+            type="checkbox"
+            checked={useRate}
+            onChange={(e) => {
+              setUseRate(e.target.checked);
+              readQuotes(text, market, e.target.checked);
+            }}
+          />
+          Take the discount from the scenario&apos;s rate instead of fitting it by parity
+        </label>
+      )}
+      {parsed?.chain && <ForwardsTable chain={parsed.chain} />}
+      {parsed && !parsed.fileError && parsed.quotes.length > 0 && (
+        <ArbitrageList
+          flags={parsed.arbitrage}
+          dropFlagged={dropFlagged}
+          onDropFlagged={setDropFlagged}
+        />
+      )}
       {parsed && <RowIssues issues={parsed.issues} />}
       {fitted && (
         <div className="space-y-4">
@@ -195,6 +267,13 @@ export function FitPage() {
             >
               Save as scenario
             </button>
+            <button
+              type="button"
+              onClick={() => void addToHistory()}
+              className="rounded border border-teal px-4 py-1.5 text-sm text-teal"
+            >
+              Add to the fit history of {source.name}
+            </button>
             {savedId && (
               <Link
                 to={`/?scenario=${savedId}`}
@@ -205,14 +284,51 @@ export function FitPage() {
               </Link>
             )}
           </div>
+          {spread && (
+            <p className="tabular text-sm" data-testid="within-spread">
+              Within the bid–ask spread:{' '}
+              {spread.withinSpread
+                .map((w) => `${formatTenor(w.expiry)} ${(100 * w.share).toFixed(0)} %`)
+                .join(' · ')}
+            </p>
+          )}
           <FitCharts
             residuals={fitted.residuals}
             compare={outcome?.kind === 'verdict' ? outcome.verdict.heston.residuals : undefined}
+            spreads={chainQuotes ?? undefined}
           />
           <ResidualMap residuals={fitted.residuals} />
-          <ResidualTable result={fitted} />
+          <ResidualTable result={fitted} halfSpreads={spread?.inHalfSpreads} />
         </div>
       )}
+      <section className="space-y-2" aria-label="Fit history">
+        <div className="flex flex-wrap items-center gap-3">
+          <h2 className="text-lg font-semibold">Fit history of {source.name}</h2>
+          <button
+            type="button"
+            disabled={demoHistory.progress !== null}
+            onClick={() => void buildHistory()}
+            className="rounded border border-rule px-3 py-1 text-sm hover:border-ink disabled:opacity-50"
+          >
+            Build a demo history (invented chains, last 5 days)
+          </button>
+        </div>
+        {demoHistory.progress !== null && (
+          <ProgressBar
+            fraction={demoHistory.progress}
+            onCancel={demoHistory.cancel}
+            testId="history-progress"
+          />
+        )}
+        {history.length === 0 ? (
+          <p className="text-sm text-muted">
+            No fits saved for this scenario yet: “Add to the fit history” after a fit keeps its
+            date, quotes digest, parameters and their standard errors here.
+          </p>
+        ) : (
+          <FitHistoryChart history={history} />
+        )}
+      </section>
     </ToolPage>
   );
 }

@@ -7,7 +7,17 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
-import { parameterLabel, parametersOf, parameterValue } from '../../../engine/core';
+import {
+  isParameterKey,
+  parameterLabel,
+  parametersOf,
+  parameterValue,
+  PARAMETER_SPECS,
+} from '../../../engine/core';
+
+/** A parameter's symbol (its label when it has none), for the compact correlation table. */
+const parameterSymbol = (name: string) =>
+  isParameterKey(name) ? PARAMETER_SPECS[name].symbol || PARAMETER_SPECS[name].label : name;
 import type { CalibrationResult, JumpsVerdict } from '../../../engine/fit';
 import { formatTenor } from '../../../components/format';
 
@@ -57,6 +67,48 @@ export function ParameterTable({ result }: { result: CalibrationResult }) {
           })}
         </tbody>
       </table>
+      {result.anchorPenalty !== undefined && (
+        <p className="tabular text-sm" data-testid="anchor-penalty">
+          Anchored to the last fit in the history: the penalty adds{' '}
+          {result.anchorPenalty.toFixed(3)} vol pts² to the SSE below.
+        </p>
+      )}
+      {errors?.correlations && errors.names.length > 1 && (
+        <details className="text-sm">
+          <summary className="cursor-pointer">Correlations of the estimates</summary>
+          <table className="tabular mt-1 text-xs" data-testid="fit-correlations">
+            <thead className="text-muted">
+              <tr>
+                <th />
+                {errors.names.map((n) => (
+                  <th key={n} className="px-1 font-normal">
+                    {n.startsWith('events.') ? n : parameterSymbol(n)}
+                  </th>
+                ))}
+              </tr>
+            </thead>
+            <tbody>
+              {errors.correlations.map((row, a) => (
+                <tr key={errors.names[a]}>
+                  <th className="pr-2 text-left font-normal text-muted">
+                    {errors.names[a].startsWith('events.')
+                      ? errors.names[a]
+                      : parameterSymbol(errors.names[a])}
+                  </th>
+                  {row.map((c, b) => (
+                    <td
+                      key={b}
+                      className={`px-1 text-right ${a !== b && Math.abs(c) > 0.95 ? 'text-stressed' : ''}`}
+                    >
+                      {c.toFixed(2)}
+                    </td>
+                  ))}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </details>
+      )}
       <p className="text-xs text-muted">
         Standard errors from the Jacobian at the optimum; “not pinned down” means a relative error
         above 100 % or a correlation above 0.95 with another parameter.
@@ -83,6 +135,8 @@ interface ResidualRow {
   model: number | null;
   /** model − quote in vol points */
   err: number | null;
+  /** model − quote in units of the quote's half-spread (chains with bid and ask) */
+  inHalfSpreads: number | null;
 }
 
 const RESIDUAL_COLUMNS: ColumnDef<ResidualRow>[] = [
@@ -99,17 +153,25 @@ const BY_EXPIRY_AND_STRIKE: SortingState = [
 ];
 
 /** The residuals, one expiry or all, in expiry and strike order or largest error first. */
-export function ResidualTable({ result }: { result: CalibrationResult }) {
+export function ResidualTable({
+  result,
+  halfSpreads,
+}: {
+  result: CalibrationResult;
+  /** each residual in half-spreads, aligned with `result.residuals`, when the quotes have them */
+  halfSpreads?: (number | null)[];
+}) {
   const [expiry, setExpiry] = useState<number | 'all'>('all');
   const [byError, setByError] = useState(false);
   const expiries = [...new Set(result.residuals.map((r) => r.expiry))].sort((a, b) => a - b);
   const data = useMemo<ResidualRow[]>(
     () =>
-      result.residuals.map((r) => ({
+      result.residuals.map((r, i) => ({
         ...r,
         err: r.model === null ? null : 100 * (r.model - r.market),
+        inHalfSpreads: halfSpreads?.[i] ?? null,
       })),
-    [result.residuals],
+    [result.residuals, halfSpreads],
   );
   // the table's state must keep its identity between renders (its row models are memoised on it)
   const sorting = byError ? LARGEST_ERROR_FIRST : BY_EXPIRY_AND_STRIKE;
@@ -153,13 +215,18 @@ export function ResidualTable({ result }: { result: CalibrationResult }) {
         <table className="tabular w-full text-right text-sm" data-testid="residual-table">
           <thead className="sticky top-0 bg-panel text-xs text-muted">
             <tr>
-              {['expiry', 'strike', 'quote vol %', 'model vol %', 'model − quote (vol pts)'].map(
-                (h) => (
-                  <th key={h} className="px-2 py-1 font-normal">
-                    {h}
-                  </th>
-                ),
-              )}
+              {[
+                'expiry',
+                'strike',
+                'quote vol %',
+                'model vol %',
+                'model − quote (vol pts)',
+                ...(halfSpreads ? ['in half-spreads'] : []),
+              ].map((h) => (
+                <th key={h} className="px-2 py-1 font-normal">
+                  {h}
+                </th>
+              ))}
             </tr>
           </thead>
           <tbody>
@@ -174,6 +241,13 @@ export function ResidualTable({ result }: { result: CalibrationResult }) {
                 >
                   {r.err === null ? '—' : r.err.toFixed(3)}
                 </td>
+                {halfSpreads && (
+                  <td
+                    className={`px-2 py-1 ${r.inHalfSpreads !== null && Math.abs(r.inHalfSpreads) > 1 ? 'text-stressed' : ''}`}
+                  >
+                    {r.inHalfSpreads === null ? '—' : r.inHalfSpreads.toFixed(2)}
+                  </td>
+                )}
               </tr>
             ))}
           </tbody>

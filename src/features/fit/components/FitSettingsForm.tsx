@@ -67,6 +67,22 @@ export function FitSettingsForm({ disabled, eventCount, onFit, onVerdict }: Prop
         </select>
       </label>
       <label className="flex flex-col gap-1 text-sm">
+        <span className={heading}>Anchor to the last fit in the history</span>
+        <input
+          type="number"
+          min={0}
+          step={10}
+          aria-label="Anchor weight"
+          className={select}
+          {...register('anchorWeight', { valueAsNumber: true })}
+        />
+        <span className="text-xs text-muted">
+          {errors.anchorWeight
+            ? errors.anchorWeight.message
+            : '0: a free fit; larger: today’s parameters stay nearer the last saved fit'}
+        </span>
+      </label>
+      <label className="flex flex-col gap-1 text-sm">
         <span className={heading}>Comparison: one scheduled move on</span>
         <input
           type="date"

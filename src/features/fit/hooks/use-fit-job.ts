@@ -2,7 +2,10 @@
 import { useCallback, useRef, useState } from 'react';
 import { expiryYears, parametersOf, type Market, type Model } from '../../../engine/core';
 import {
+  anchorFor,
   completeGuess,
+  entryModel,
+  type FitHistoryEntry,
   type CalibrationResult,
   type JumpsVerdict,
   type VolQuote,
@@ -21,6 +24,8 @@ export interface FitInputs {
   settings: FitSettings;
   /** the source scenario's valuation date, for the comparison's move date */
   valuationDate: string;
+  /** the source scenario's fit history, for the anchor */
+  history: FitHistoryEntry[];
 }
 
 export function useFitJob() {
@@ -30,7 +35,15 @@ export function useFitJob() {
   const current = useRef<AbortController | null>(null);
 
   const start = useCallback(async (what: FitOutcome['kind'], inputs: FitInputs) => {
-    const { market, startFrom, quotes, settings, valuationDate } = inputs;
+    const { market, startFrom, quotes, settings, valuationDate, history } = inputs;
+    const previous = anchorFor(history, settings.kind, valuationDate);
+    const anchor =
+      settings.anchorWeight > 0 && previous
+        ? {
+            model: entryModel(previous, completeGuess(settings.kind, startFrom)),
+            weight: settings.anchorWeight,
+          }
+        : undefined;
     const eventCount = startFrom.events?.length ?? 0;
     const moveTime = settings.moveDate ? expiryYears(settings.moveDate, valuationDate) : null;
     setError(null);
@@ -56,7 +69,7 @@ export function useFitJob() {
       if (what === 'fit') {
         const model = completeGuess(settings.kind, startFrom);
         const result = await runFit(
-          (api, p) => api.calibrate({ ...base, model }, p),
+          (api, p) => api.calibrate({ ...base, model, ...(anchor ? { anchor } : {}) }, p),
           setProgress,
           controller.signal,
         );
