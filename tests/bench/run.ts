@@ -4,6 +4,7 @@
  */
 import { benchBook } from './book';
 import { benchCalibration } from './calibration';
+import { benchChainFit } from './chain-fit';
 import { benchMonteCarlo } from './monte-carlo';
 import { benchReplay } from './replay';
 import { benchScheduledMoves } from './scheduled-moves';
@@ -28,6 +29,11 @@ console.table(benchBook());
 
 console.log('\nCalibration to a 13 × 8 surface with noise, one thread.');
 console.table(benchCalibration());
+
+console.log(
+  '\nFit on a chain with bid and ask (8 expiries × 40 strikes × calls and puts), one thread.',
+);
+console.table(benchChainFit());
 
 console.log('\nMonte Carlo, Bates with QE variance and jumps.');
 console.table(await benchMonteCarlo());
