@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Link } from 'react-router';
 import { CsvInput } from '../../../components/CsvInput';
 import { formatNumber, formatTenor } from '../../../components/format';
@@ -50,6 +50,11 @@ export function FitPage() {
   const job = useFitJob();
 
   const source = scenarios.data?.find((s) => s.id === sourceId) ?? scenarios.data?.[0];
+  // the first scenario shown stays the source: saving one (a fit's history) re-sorts the list
+  const firstId = scenarios.data?.[0]?.id ?? null;
+  useEffect(() => {
+    if (sourceId === null && firstId !== null) setSourceId(firstId);
+  }, [sourceId, firstId]);
   const history = source ? fitHistoryOf(source.document) : [];
   const demoHistory = useDemoHistory();
   const loadDemoChain = useDemoChain(source?.document);
