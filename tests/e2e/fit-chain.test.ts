@@ -33,7 +33,7 @@ describe('Fit on a chain of calls and puts with bid and ask', () => {
     const legend = await page.locator('.legendtext').allTextContents();
     expect(legend).toContain('bid–ask');
 
-    await page.getByRole('button', { name: /Add to the fit history of/ }).click();
+    await page.getByRole('button', { name: /Add to the calibration history of/ }).click();
     await expect
       .poll(() => page.locator('[data-testid="fit-history-chart"] .main-svg').count(), {
         timeout: 20000,

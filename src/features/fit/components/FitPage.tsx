@@ -277,7 +277,7 @@ export function FitPage() {
               onClick={() => void addToHistory()}
               className="rounded border border-teal px-4 py-1.5 text-sm text-teal"
             >
-              Add to the fit history of {source.name}
+              Add to the calibration history of {source.name}
             </button>
             {savedId && (
               <Link
@@ -306,9 +306,9 @@ export function FitPage() {
           <ResidualTable result={fitted} halfSpreads={spread?.inHalfSpreads} />
         </div>
       )}
-      <section className="space-y-2" aria-label="Fit history">
+      <section className="space-y-2" aria-label="Calibration history">
         <div className="flex flex-wrap items-center gap-3">
-          <h2 className="text-lg font-semibold">Fit history of {source.name}</h2>
+          <h2 className="text-lg font-semibold">Calibration history of {source.name}</h2>
           <button
             type="button"
             disabled={demoHistory.progress !== null}
@@ -327,8 +327,8 @@ export function FitPage() {
         )}
         {history.length === 0 ? (
           <p className="text-sm text-muted">
-            No fits saved for this scenario yet: “Add to the fit history” after a fit keeps its
-            date, quotes digest, parameters and their standard errors here.
+            No fits saved for this scenario yet: “Add to the calibration history” after a fit keeps
+            its date, quotes digest, parameters and their standard errors here.
           </p>
         ) : (
           <FitHistoryChart history={history} />
