@@ -26,8 +26,11 @@ export function expiryYears(value: string, valuationDate: string): number | stri
   return n;
 }
 
-/** The calendar date `years` (ACT/365, rounded to whole days) after the valuation date. */
-export function dateAfter(valuationDate: string, years: number): string {
-  const v = Date.parse(`${valuationDate}T00:00:00Z`);
-  return new Date(v + Math.round(years * 365) * DAY_MS).toISOString().slice(0, 10);
+/** The calendar date `days` whole days after (or before, when negative) an ISO date. */
+export function addDays(date: string, days: number): string {
+  return new Date(Date.parse(`${date}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10);
 }
+
+/** The calendar date `years` (ACT/365, rounded to whole days) after the valuation date. */
+export const dateAfter = (valuationDate: string, years: number): string =>
+  addDays(valuationDate, Math.round(years * 365));

@@ -10,6 +10,7 @@ import seedrandom from 'seedrandom';
 import { blackPrice } from '../analytic/black';
 import { normPdf } from '../analytic/normal';
 import { priceOptions } from '../analytic/pricing';
+import { addDays } from '../core/dates';
 import { discountFactor, forwardPrice } from '../core/market';
 import type { Market, Model, OptionSpec } from '../core/types';
 
@@ -25,10 +26,6 @@ const TICK = 0.05;
 /** vol noise and the half-spread, in vol points */
 const NOISE_VOL_POINTS = 0.1;
 const HALF_SPREAD_VOL_POINTS = 0.4;
-
-function addDays(date: string, days: number): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) + days * 86400000).toISOString().slice(0, 10);
-}
 
 /** The chain as CSV rows `expiry,strike,type,bid,ask` (expiry as a date). */
 export function demoChainCsv(req: DemoChainRequest): string {

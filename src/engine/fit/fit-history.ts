@@ -5,6 +5,7 @@
  * (`fitHistory`), so it syncs with the desk like the rest of the scenario.
  */
 import { parametersOf, type Market, type Model, type ModelKind } from '../core';
+import { addDays } from '../core/dates';
 import { modelFrom } from '../core/models';
 import { type CalibrationResult, type VolQuote, calibrate } from './calibrate';
 import { demoChainCsv } from './demo-chain';
@@ -90,10 +91,6 @@ export function anchorFor(
 /** An entry's parameters as a model of its kind (the rest filled from a starting model). */
 export const entryModel = (entry: FitHistoryEntry, fill: Model): Model =>
   modelFrom(entry.kind, entry.parameters, (p) => fill[p as keyof Model] as number);
-
-function addDays(date: string, days: number): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) + days * 86400000).toISOString().slice(0, 10);
-}
 
 /**
  * An invented history for the demo: the demo chain on each of the last `days` days, from the

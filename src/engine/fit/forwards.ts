@@ -117,7 +117,8 @@ function weightedFit(pairs: readonly Pair[], w: readonly number[], fixedDiscount
   return { a, b, varA: sxx / det, varB: sw / det, covAB: -sx / det };
 }
 
-const median = (xs: number[]) => {
+/** The median of a list of numbers. */
+export const median = (xs: readonly number[]): number => {
   const s = [...xs].sort((x, y) => x - y);
   const m = s.length >> 1;
   return s.length % 2 ? s[m] : 0.5 * (s[m - 1] + s[m]);

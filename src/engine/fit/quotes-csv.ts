@@ -13,7 +13,7 @@ import type { VolQuote } from './calibrate';
 import type { Market } from '../core/types';
 import { arbitrageFlags, type ArbitrageFlag } from './arbitrage';
 import { prepareChain, type PreparedChain } from './chain-quotes';
-import type { ChainQuote } from './forwards';
+import { median, type ChainQuote } from './forwards';
 
 export const MAX_QUOTES_FILE_BYTES = 2 * 1024 * 1024;
 export const MAX_QUOTES = 5000;
@@ -316,17 +316,8 @@ export function parseQuotesCsv(
   quotes.forEach((q) => (q.weight = (q.weight ?? 1) / mean));
   const arbitrage = flagsOf(quotes, market);
   if (spots.length === 0) return { quotes, issues, arbitrage };
-  spots.sort((a, b) => a - b);
-  const m = spots.length >> 1;
-  const impliedSpot = spots.length % 2 ? spots[m] : 0.5 * (spots[m - 1] + spots[m]);
-  return { quotes, issues, impliedSpot, arbitrage };
+  return { quotes, issues, impliedSpot: median(spots), arbitrage };
 }
-
-const medianOf = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : 0.5 * (s[m - 1] + s[m]);
-};
 
 /** Whether some expiry quotes both a call and a put at three strikes or more. */
 function hasPairs(rows: readonly ChainQuote[]): boolean {
@@ -367,6 +358,6 @@ function chainQuotes(
     issues,
     chain: { ...prepared, carry },
     arbitrage: flagsOf(prepared.quotes, market),
-    ...(spots.length > 0 ? { impliedSpot: medianOf(spots) } : {}),
+    ...(spots.length > 0 ? { impliedSpot: median(spots) } : {}),
   };
 }
