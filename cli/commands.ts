@@ -27,25 +27,21 @@ import {
 } from '../src/engine/core';
 import {
   bookTotal,
+  DEFAULT_VOL_REACTION,
+  jumpExposure,
   ladderMoves,
   legRisks,
   legValuesAtMoves,
   sumRow,
+  volReactionValuesAtMoves,
   ladderSchema,
   positionsSchema,
   type Position,
 } from '../src/engine/book';
 import { replay as replayHedge, replayRequestSchema } from '../src/engine/replay';
 import { simulate as simulatePaths, simulationSettingsSchema } from '../src/engine/paths';
-import { CliError } from './io';
-
-function parse<T>(schema: z.ZodType<T>, value: unknown): T {
-  const r = schema.safeParse(value);
-  if (r.success) return r.data;
-  const issue = r.error.issues[0];
-  const path = issue.path.map(String).join('.') || '(request)';
-  throw new CliError('invalid-input', `${path}: ${issue.message}`, path);
-}
+import { CliError, parse } from './io';
+import { stressedInputs } from './stressed';
 
 const optionSchema = z.object({
   type: z.enum(['call', 'put'], { error: 'must be "call" or "put"' }),
@@ -157,32 +153,34 @@ const revalueRequest = z.object({
   stress: stressSchema.optional(),
   positions: positionsSchema,
   ladder: ladderSchema.optional(),
+  /** the spot-vol reaction of the jump exposure: ATM vol points added per 1 % fall */
+  volReaction: z
+    .number({ error: 'must be a number' })
+    .refine((x) => Number.isFinite(x) && Math.abs(x) <= 10, 'must be from −10 to 10')
+    .optional(),
 });
 
 export function revalue(request: unknown) {
   const req = parse(revalueRequest, request);
-  let market = req.market as Market;
-  let model = req.model as Model;
-  if (!isIdentityStress(req.stress)) {
-    const s = applyStress(market, model, req.stress ?? {});
-    if (s.issues.length > 0)
-      throw new CliError(
-        'invalid-stress',
-        `${s.issues[0].path}: ${s.issues[0].message}`,
-        s.issues[0].path,
-      );
-    market = s.market;
-    model = s.model;
-  }
+  const { market, model } = stressedInputs(req);
   const positions = req.positions as Position[];
   const started = performance.now();
   const legs = legRisks(market, model, positions);
   const total = bookTotal(legs);
   const moves = req.ladder ? ladderMoves(req.ladder) : [];
-  const ladder = legValuesAtMoves(market, model, positions, moves).map((row, i) => ({
-    move: moves[i],
-    pnl: sumRow(row) - total.value,
-  }));
+  const ladderPnl = legValuesAtMoves(market, model, positions, moves).map(
+    (row) => sumRow(row) - total.value,
+  );
+  const ladder = ladderPnl.map((pnl, i) => ({ move: moves[i], pnl }));
+  const reaction = req.volReaction ?? DEFAULT_VOL_REACTION;
+  const exposure = req.ladder
+    ? jumpExposure(market, model, positions, moves, total.delta, {
+        model: ladderPnl,
+        volReaction: volReactionValuesAtMoves(market, positions, legs, moves, reaction).map(
+          (row) => sumRow(row) - total.value,
+        ),
+      })
+    : null;
   const elapsedMs = performance.now() - started;
   return {
     legs: legs.map(({ id, value, delta, gamma, vega, theta }) => ({
@@ -195,6 +193,22 @@ export function revalue(request: unknown) {
     })),
     total,
     ladder,
+    // with a ladder: each move's P&L less the delta part, under the model and the vol-reaction rule
+    ...(exposure
+      ? {
+          jumpExposure: {
+            moves: exposure.moves.map((move, i) => ({
+              move,
+              model: exposure.model[i],
+              volReaction: exposure.volReaction[i],
+            })),
+            volReaction: reaction,
+            expectedJumpPnlPerYear: exposure.expectedJumpPnlPerYear,
+            jumpsPerYear: exposure.jumpsPerYear,
+            oneDay: exposure.oneDay,
+          },
+        }
+      : {}),
     elapsedMs,
   };
 }
@@ -344,6 +358,7 @@ export function replay(request: unknown) {
     market: req.market as Market,
     model: req.model as Model,
     position: req.position,
+    ...(req.overlay?.length ? { overlay: req.overlay } : {}),
     hedge: req.hedge,
     paths: req.paths,
     seed: req.seed,
@@ -371,6 +386,7 @@ export function replay(request: unknown) {
     worstPath: r.worstPath,
     digest: r.digest,
     premium: r.premium,
+    ...(req.overlay?.length ? { overlayPremium: r.overlayPremium, overlayPnl: r.overlayPnl } : {}),
     steps: r.steps,
     elapsedMs: r.elapsedMs,
   };

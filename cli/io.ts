@@ -1,3 +1,4 @@
+import type { z } from 'zod';
 /** The command line's contract: one JSON request in, one JSON response out, errors on stderr. */
 import { readFileSync } from 'node:fs';
 
@@ -36,4 +37,13 @@ export function fail(error: CliError): never {
   if (error.path !== undefined) body.path = error.path;
   process.stderr.write(JSON.stringify({ error: body }) + '\n');
   process.exit(2);
+}
+
+/** The request checked by its schema; the first refusal exits with its field path. */
+export function parse<T>(schema: z.ZodType<T>, value: unknown): T {
+  const r = schema.safeParse(value);
+  if (r.success) return r.data;
+  const issue = r.error.issues[0];
+  const path = issue.path.map(String).join('.') || '(request)';
+  throw new CliError('invalid-input', `${path}: ${issue.message}`, path);
 }

@@ -5,6 +5,7 @@
  */
 import { calibrate, price, replay, revalue, simulate, smile } from './commands';
 import { forwards } from './forwards';
+import { wingHedge } from './wing-hedge';
 import { CliError, fail, readRequest } from './io';
 
 const COMMANDS: Record<string, (request: unknown) => unknown> = {
@@ -15,6 +16,7 @@ const COMMANDS: Record<string, (request: unknown) => unknown> = {
   simulate,
   replay,
   forwards,
+  'wing-hedge': wingHedge,
 };
 
 function main(argv: string[]) {

@@ -12,12 +12,14 @@ export interface ReplayBlocksDone {
   pnl: Float64Array[];
   onJumps: Float64Array[];
   onEvents: Float64Array[];
+  overlay: Float64Array[];
   premium: number;
+  overlayPremium: number;
   steps: number;
 }
 
 export interface FinishedRun {
-  meta: Pick<ReplayPlan, 'request' | 'steps' | 'premium'>;
+  meta: Pick<ReplayPlan, 'request' | 'steps' | 'premium' | 'overlayPremium'>;
   blocks: BlockPnl[];
   elapsedMs: number;
 }

@@ -52,27 +52,41 @@ export function runReplays(
         const pnl = new Array<Float64Array>(count);
         const onJumps = new Array<Float64Array>(count);
         const onEvents = new Array<Float64Array>(count);
-        let meta = { request, steps: 0, premium: 0 };
+        const overlay = new Array<Float64Array>(count);
+        let meta = { request, steps: 0, premium: 0, overlayPremium: 0 };
         await Promise.all(
           apis.map(async (api, w) => {
             const mine = queues[w].filter((b) => b < count);
             for (const batch of batches(mine, 2)) {
               const out = await api.runBlocks(request, batch, tick);
-              meta = { request, steps: out.steps, premium: out.premium };
+              meta = {
+                request,
+                steps: out.steps,
+                premium: out.premium,
+                overlayPremium: out.overlayPremium,
+              };
               batch.forEach((b, j) => {
                 pnl[b] = out.pnl[j];
                 onJumps[b] = out.onJumps[j];
                 onEvents[b] = out.onEvents[j];
+                overlay[b] = out.overlay[j];
               });
             }
           }),
         );
-        const blocks = pnl.map((p, b) => ({ pnl: p, onJumps: onJumps[b], onEvents: onEvents[b] }));
+        const blocks = pnl.map((p, b) => ({
+          pnl: p,
+          onJumps: onJumps[b],
+          onEvents: onEvents[b],
+          overlay: overlay[b],
+        }));
         finished.push({ meta, blocks, elapsedMs: performance.now() - started });
       }
       // joining, sorting for VaR/ES and the histograms run in a worker, not on the page's thread
       const buffers = finished.flatMap((f) =>
-        f.blocks.flatMap((b) => [b.pnl, b.onJumps, b.onEvents].map((a) => a.buffer as ArrayBuffer)),
+        f.blocks.flatMap((b) =>
+          [b.pnl, b.onJumps, b.onEvents, b.overlay].map((a) => a.buffer as ArrayBuffer),
+        ),
       );
       const { results, histograms } = await apis[0].finish(transfer(finished, buffers), BINS);
       return { results, histograms, workers: apis.length };

@@ -31,7 +31,9 @@ const api: ReplayApi = {
       pnl: [],
       onJumps: [],
       onEvents: [],
+      overlay: [],
       premium: plan.premium,
+      overlayPremium: plan.overlayPremium,
       steps: plan.steps,
     };
     for (const b of blocks) {
@@ -39,9 +41,10 @@ const api: ReplayApi = {
       done.pnl.push(out.pnl);
       done.onJumps.push(out.onJumps);
       done.onEvents.push(out.onEvents);
+      done.overlay.push(out.overlay);
       void onBlock();
     }
-    const buffers = [...done.pnl, ...done.onJumps, ...done.onEvents].map(
+    const buffers = [...done.pnl, ...done.onJumps, ...done.onEvents, ...done.overlay].map(
       (a) => a.buffer as ArrayBuffer,
     );
     return transfer(done, buffers);

@@ -13,6 +13,7 @@ import {
   type LegRisk,
 } from './book';
 import { jumpMoveProbabilities } from './jump-law';
+import { jumpExposure, type JumpExposure } from './jump-exposure';
 import type { Position } from './positions';
 import { applyStress, type Stress } from '../core/stress';
 import type { Market, Model } from '../core/types';
@@ -55,6 +56,8 @@ export interface SetRevaluation {
   /** probability of a jump into each ladder bin within a day and within a week (base model) */
   jumpPerDay: number[];
   jumpPerWeek: number[];
+  /** the base book's exposure to jumps: ladders less the delta part, expected jump P&L, 1-day tail */
+  jumpExposure: JumpExposure;
   elapsedMs: number;
 }
 
@@ -135,6 +138,10 @@ export function revalueSet(
     volReaction,
     jumpPerDay: jumpMoveProbabilities(base.model, moves, 1 / 365),
     jumpPerWeek: jumpMoveProbabilities(base.model, moves, 7 / 365),
+    jumpExposure: jumpExposure(base.market, base.model, positions, moves, total.delta, {
+      model: baseLadder,
+      volReaction: volReactionLadder,
+    }),
     elapsedMs: performance.now() - started,
   };
 }

@@ -5,3 +5,5 @@ export * from './jump-law';
 export * from './positions-csv';
 export * from './positions';
 export * from './schema';
+export * from './jump-exposure';
+export * from './wing-hedge';

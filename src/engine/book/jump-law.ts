@@ -75,3 +75,65 @@ export function jumpMoveProbabilities(
     return atLeastOne * Math.max(0, logJumpCdf(jumps, yHi) - logJumpCdf(jumps, yLo));
   });
 }
+
+/**
+ * Density of one log-jump: normal (Merton), asymmetric double exponential (Kou), or SVCJ's
+ * normal plus a signed exponential, the exponentially modified Gaussian
+ * c·e^{−c(y−μ) + c²σ²/2}·Φ(x − cσ) (mirrored for ρJ < 0), x = (y − μ)/σ, c = 1/(|ρJ|μV).
+ */
+export function logJumpDensity(jumps: JumpLaw, y: number): number {
+  if (jumps.type === 'lognormal') {
+    const z = (y - jumps.jumpMean) / jumps.jumpStdev;
+    return Math.exp(-0.5 * z * z) / (jumps.jumpStdev * Math.sqrt(2 * Math.PI));
+  }
+  if (jumps.type === 'double-exponential') {
+    const { upProbability: p, upMean: m1, downMean: m2 } = jumps;
+    if (y >= 0) return m1 > 0 ? (p / m1) * Math.exp(-y / m1) : 0;
+    return m2 > 0 ? ((1 - p) / m2) * Math.exp(y / m2) : 0;
+  }
+  if (jumps.type === 'price-variance') {
+    const { jumpMean: mu, jumpStdev: sd, jumpCorrelation: rho, varianceJumpMean: muV } = jumps;
+    const scale = Math.abs(rho) * muV;
+    const sign = Math.sign(rho);
+    if (scale === 0) return logJumpDensity({ ...jumps, type: 'lognormal' }, y);
+    const c = 1 / scale;
+    const t = (y - mu) * sign; // the exponential's side made positive
+    if (sd === 0) return t >= 0 ? c * Math.exp(-c * t) : 0;
+    const x = t / sd;
+    const p = normCdf(x - c * sd);
+    return p > 0 ? c * Math.exp(-c * t + 0.5 * c * c * sd * sd + Math.log(p)) : 0;
+  }
+  return 0;
+}
+
+/**
+ * Where a log-jump's density lives, for quadrature: break points (panels between each pair,
+ * a kink sits on one) and panels per piece; a single point for a jump of fixed size; null
+ * without jumps. Beyond the range the mass is below 1e-20.
+ */
+export function logJumpRange(
+  jumps: JumpLaw,
+): { breaks: number[]; panels: number; point?: number } | null {
+  if (jumps.type === 'none') return null;
+  if (
+    jumps.type === 'lognormal' ||
+    (jumps.type === 'price-variance' && jumps.varianceJumpMean === 0)
+  ) {
+    if (jumps.jumpStdev === 0) return { breaks: [], panels: 0, point: jumps.jumpMean };
+    const s = jumps.jumpStdev;
+    return { breaks: [jumps.jumpMean - 10 * s, jumps.jumpMean + 10 * s], panels: 24 };
+  }
+  if (jumps.type === 'double-exponential') {
+    const lo = jumps.downMean > 0 && jumps.upProbability < 1 ? -47 * jumps.downMean : 0;
+    const hi = jumps.upMean > 0 && jumps.upProbability > 0 ? 47 * jumps.upMean : 0;
+    return { breaks: [lo, 0, hi].filter((b, i, all) => i === 0 || b > all[i - 1]), panels: 24 };
+  }
+  const { jumpMean: mu, jumpStdev: sd, jumpCorrelation: rho, varianceJumpMean: muV } = jumps;
+  const reach = 47 * Math.abs(rho) * muV;
+  const lo = mu - 10 * sd - (rho < 0 ? reach : 0);
+  const hi = mu + 10 * sd + (rho > 0 ? reach : 0);
+  // with σS = 0 the density jumps at μS: a break there
+  return sd === 0
+    ? { breaks: rho > 0 ? [mu, hi] : [lo, mu], panels: 24 }
+    : { breaks: [lo, hi], panels: 32 };
+}

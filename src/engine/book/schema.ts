@@ -55,3 +55,31 @@ export const ladderSchema = z
 /** A position of the book: an option leg or a holding of the underlying. */
 export type Position = z.infer<typeof positionSchema>;
 export type PositionType = Position['type'];
+
+/** A wing-hedge request's choices: 1 to 8 options, a premium budget, the down moves covered. */
+export const wingHedgeSchema = z
+  .object({
+    instruments: z
+      .array(
+        z.object({
+          type: z.enum(['call', 'put'], { error: 'must be call or put' }),
+          strike: positiveUpTo(1e12),
+          expiry: positiveUpTo(MAX_EXPIRY_YEARS),
+        }),
+      )
+      .min(1, 'needs at least one option to choose from')
+      .max(8, 'takes at most 8 options'),
+    budget: bounded(0, 1e12),
+    from: bounded(-0.99, 0).optional(),
+    to: bounded(-0.99, 0).optional(),
+    steps: finite
+      .refine(
+        (n) => Number.isInteger(n) && n >= 2 && n <= 201,
+        'must be a whole number from 2 to 201',
+      )
+      .optional(),
+  })
+  .refine((w) => (w.to ?? -0.05) > (w.from ?? -0.3), {
+    message: 'to must be above from',
+    path: ['to'],
+  });

@@ -4,3 +4,4 @@ export * from './replay-runs';
 export * from './replay-summary';
 export * from './replay';
 export * from './request-schema';
+export * from './option-hedge';

@@ -14,6 +14,7 @@ export interface SavedReplayRun {
   id: string;
   savedAt: string;
   engineVersion: string;
+  /** the position, its overlay (when there was one) and the first hedge */
   request: ReplayRequest;
   /** a second hedge replayed on the same paths, when there was one */
   compare?: HedgeSettings;
@@ -28,9 +29,19 @@ export const summaryOf = (s: ReplaySummary): RunSummary => ({
   digest: s.digest,
 });
 
-/** The requests of a run: its own hedge, then the compared one on the same paths. */
+/**
+ * The requests of a run: its own hedge, then the compared one on the same paths; with an
+ * overlay, each hedge first without it and then with it.
+ */
 export function runRequests(run: Pick<SavedReplayRun, 'request' | 'compare'>): ReplayRequest[] {
-  return run.compare ? [run.request, { ...run.request, hedge: run.compare }] : [run.request];
+  const hedges = run.compare ? [run.request.hedge, run.compare] : [run.request.hedge];
+  return hedges.flatMap((hedge) => {
+    const withOverlay = { ...run.request, hedge };
+    if (!run.request.overlay?.length) return [withOverlay];
+    const { overlay, ...plain } = withOverlay;
+    void overlay;
+    return [plain, withOverlay];
+  });
 }
 
 /** The replay runs among a scenario's runs; entries that are not well-formed are skipped. */

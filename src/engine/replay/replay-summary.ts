@@ -20,6 +20,8 @@ export interface ReplaySummary {
   };
   /** the index of the worst path, for drill-down */
   worstPath: number;
+  /** the overlay's own P&L (payoffs less premium, unhedged), when the run has an overlay */
+  overlayPnl?: { mean: number; stdev: number };
   /** FNV-1a over the IEEE-754 bits of every path's P&L, in path order */
   digest: string;
 }
@@ -28,6 +30,7 @@ export function summariseReplay(
   pnl: Float64Array,
   onJumps: Float64Array,
   onEvents: Float64Array = new Float64Array(pnl.length),
+  overlay: Float64Array | null = null,
 ): ReplaySummary {
   const n = pnl.length;
   let sum = 0;
@@ -68,8 +71,20 @@ export function summariseReplay(
       tailEvents: tailEvents / tail,
     },
     worstPath: order[0],
+    ...(overlay ? { overlayPnl: meanStdev(overlay) } : {}),
     digest: digestBits(pnl),
   };
+}
+
+function meanStdev(values: Float64Array): { mean: number; stdev: number } {
+  let sum = 0;
+  let sq = 0;
+  for (let i = 0; i < values.length; i++) {
+    sum += values[i];
+    sq += values[i] * values[i];
+  }
+  const mean = sum / values.length;
+  return { mean, stdev: Math.sqrt(Math.max(0, sq / values.length - mean * mean)) };
 }
 
 /** Two 32-bit FNV-1a streams (different offset bases) over the little-endian bytes. */

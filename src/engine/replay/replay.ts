@@ -1,14 +1,17 @@
 /**
- * Hedge replay: a position of European legs, bought at the model's price, hedged in the
- * underlying (no hedge, Black-Scholes delta at a hedge vol, or the model's own delta from a
- * precomputed table) at each rebalance, with proportional costs and financing at the scenario's
- * rate, over simulated paths of the scenario's model. Each step's P&L (mark-to-model of the
+ * Hedge replay: a position of European legs, bought at the model's price, with an optional
+ * overlay of options bought or sold at inception and held to their expiry, hedged at each
+ * rebalance (no hedge, Black-Scholes delta at a hedge vol, the model's own delta from a
+ * precomputed table, or a hedge option held to zero the model gamma or vega with the rest of
+ * the delta in the underlying), with proportional costs and financing at the scenario's rate,
+ * over simulated paths of the scenario's model. Each step's P&L (mark-to-model of the
  * position plus the hedge and cash) is booked to "jumps" when the step had a jump and to
  * "diffusion" otherwise. Paths are seeded per block as in the Monte Carlo, so a replay is
  * bit-identical across machines and worker counts.
  */
 import { modelSpec } from '../analytic/characteristic';
 import { buildHedgeTable, lookup, type Leg } from './hedge-table';
+import { isOptionHedge, planOptionHedge, type HedgeInstrument } from './option-hedge';
 import { discountFactor, dividendRate, forwardPrice, riskFreeRate } from '../core/market';
 import { normCdf } from '../analytic/normal';
 import { drawMove, jumpSampler, meanRelativeJump } from '../paths/path-step';
@@ -19,36 +22,53 @@ import { BlockRandom } from '../paths/random';
 import { summariseReplay, type ReplaySummary } from './replay-summary';
 import type { Market, Model } from '../core/types';
 
+export type HedgeMethod =
+  'none' | 'bs-delta' | 'model-delta' | 'model-delta-gamma' | 'model-delta-vega';
+
 export interface HedgeSettings {
-  method: 'none' | 'bs-delta' | 'model-delta';
+  method: HedgeMethod;
   rebalancesPerDay: number;
-  /** proportional cost of each trade in the underlying, in basis points of its value */
+  /**
+   * proportional cost of each trade, in basis points of its value: the underlying's value for
+   * trades in it, the option's premium for trades in the hedge option
+   */
   costBps: number;
   /** Black-Scholes hedge vol; each leg's implied vol at inception when absent */
   hedgeVol?: number;
+  /** the option held against the model gamma or vega (model-delta-gamma, model-delta-vega) */
+  instrument?: HedgeInstrument;
 }
 
 export interface ReplayRequest {
   market: Market;
   model: Model;
   position: Leg[];
+  /** options bought (quantity > 0) or sold at inception at the model's price, held to expiry */
+  overlay?: Leg[];
   hedge: HedgeSettings;
   paths: number;
   seed: number;
 }
 
 export interface ReplayResult extends ReplaySummary {
+  /** what the position cost at inception (negative: premium received) */
   premium: number;
+  /** what the overlay cost at inception (0 without one) */
+  overlayPremium: number;
   steps: number;
   paths: number;
   elapsedMs: number;
 }
 
-/** One block's per-path P&L, and the parts of it booked on jump steps and on scheduled-move steps. */
+/**
+ * One block's per-path P&L, the parts of it booked on jump steps and on scheduled-move steps,
+ * and the overlay's own P&L (its payoffs less its premium, unhedged).
+ */
 export interface BlockPnl {
   pnl: Float64Array;
   onJumps: Float64Array;
   onEvents: Float64Array;
+  overlay: Float64Array;
 }
 
 /** One path followed step by step, for drill-down: values at each rebalance and at the end. */
@@ -59,6 +79,8 @@ export interface PathTrace {
   variance: number[];
   /** shares of the underlying held after the rebalance at that time */
   shares: number[];
+  /** the hedge option held after the rebalance at that time (option hedges only) */
+  options?: number[];
   /** cumulative P&L (undiscounted) at that time */
   pnl: number[];
   /** steps that had a jump: the time at the step's end and the log-jump */
@@ -74,19 +96,32 @@ export interface ReplayPlan {
   dt: number;
   horizon: number;
   premium: number;
-  runPath: (
-    rng: BlockRandom,
-    trace: PathTrace | null,
-  ) => { total: number; jumpPart: number; eventPart: number };
+  overlayPremium: number;
+  runPath: (rng: BlockRandom, trace: PathTrace | null) => PathPnl;
 }
+
+/** One path's P&L (undiscounted), the parts on jump and move steps, and the overlay's own. */
+export interface PathPnl {
+  total: number;
+  jumpPart: number;
+  eventPart: number;
+  overlayPart: number;
+}
+
+/** The last expiry among the position and the overlay: the replay's horizon. */
+export const replayHorizon = (req: Pick<ReplayRequest, 'position' | 'overlay'>): number =>
+  Math.max(...req.position.map((l) => l.expiry), ...(req.overlay ?? []).map((l) => l.expiry));
 
 export function blockCountFor(paths: number): number {
   return Math.ceil(paths / BLOCK_PATHS);
 }
 
 export function planReplay(req: ReplayRequest): ReplayPlan {
-  const { market, model, position, hedge } = req;
-  const horizon = Math.max(...position.map((l) => l.expiry));
+  const { market, model, hedge } = req;
+  const overlay = req.overlay ?? [];
+  // the hedge sees the position and the overlay as one book
+  const position = overlay.length > 0 ? [...req.position, ...overlay] : req.position;
+  const horizon = replayHorizon(req);
   const spec = modelSpec(model);
   const r = riskFreeRate(market, horizon);
   const q = dividendRate(market, horizon);
@@ -107,9 +142,18 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
   const varianceJumps = spec.jumps.type === 'price-variance';
   const lam = grid.expectedJumps;
   const p0 = lam.map((l) => Math.exp(-l));
-  const table = buildHedgeTable(market, model, position, times);
+  const table = buildHedgeTable(market, model, position, times, {
+    vega: hedge.method === 'model-delta-vega',
+  });
   const inception = priceOptions(market, model, position);
-  const premium = position.reduce((a, l, i) => a + l.quantity * inception[i].price, 0);
+  const nOwn = req.position.length;
+  let premium = 0;
+  let overlayPremium = 0;
+  position.forEach((l, i) => {
+    if (i < nOwn) premium += l.quantity * inception[i].price;
+    else overlayPremium += l.quantity * inception[i].price;
+  });
+  const optionHedge = planOptionHedge(req, times, horizon, table);
   const hedgeVols = inception.map((o) => hedge.hedgeVol ?? o.impliedVol ?? 0.2);
   const cost = hedge.costBps / 1e4;
   const accrual = Float64Array.from(grid.dt, (h) => Math.exp(r * h));
@@ -157,20 +201,41 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
       a += l.quantity * Math.max(0, l.type === 'call' ? S - l.strike : l.strike - S);
     return a;
   };
+  const overlaySettles = settles.map((legs) => legs.filter((l) => overlay.includes(l)));
+  const overlayPayoff = (k: number, S: number) => {
+    let a = 0;
+    for (const l of overlaySettles[k])
+      a += l.quantity * Math.max(0, l.type === 'call' ? S - l.strike : l.strike - S);
+    return a;
+  };
   const runPath = (rng: BlockRandom, trace: PathTrace | null) => {
     state[0] = 0;
     state[1] = v0;
     let shares = 0;
-    let cash = -premium;
-    let mark = premium;
+    let cash = -(premium + overlayPremium);
+    let mark = premium + overlayPremium;
+    let overlayCash = -overlayPremium;
     let total = 0;
     let jumpPart = 0;
     let eventPart = 0;
+    // the hedge option: quantity held and its value per unit at the start of the step
+    let held = 0;
+    let unit = 0;
     for (let k = 0; k < n; k++) {
       const S = S0 * Math.exp(state[0]);
-      const before = mark + shares * S + cash; // the portfolio's value at the start of the step
+      // (after the first step the option's value here is the one marked at the end of the last)
+      if (optionHedge && k === 0) unit = optionHedge.unitValue(0, state[1], state[0]);
+      // the portfolio's value at the start of the step
+      const before = mark + held * unit + shares * S + cash;
       // rebalance; the cost is part of this step's P&L
-      const target = hedgeDelta(k, state[0], state[1]);
+      let target: number;
+      if (optionHedge) {
+        const h = optionHedge.holdings(k, state[1], state[0], held);
+        const optionTrade = h.options - held;
+        cash -= optionTrade * unit + cost * Math.abs(optionTrade) * Math.abs(unit);
+        held = h.options;
+        target = h.shares;
+      } else target = hedgeDelta(k, state[0], state[1]);
       const trade = target - shares;
       cash -= trade * S + cost * Math.abs(trade) * S;
       shares = target;
@@ -179,6 +244,7 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
         trace.spot.push(S);
         trace.variance.push(state[1]);
         trace.shares.push(shares);
+        trace.options?.push(held);
         trace.pnl.push(total);
       }
       // one step of the model: the scheduled moves dated t_k land first
@@ -206,8 +272,15 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
       cash *= accrual[k];
       cash += shares * q * S * grid.dt[k]; // dividends on the shares held
       cash += payoff(k + 1, S1);
-      mark = k + 1 < n ? lookup(table, k + 1, state[1], state[0], S0).value : 0;
-      const step = mark + shares * S1 + cash - before;
+      if (overlay.length > 0) overlayCash = overlayCash * accrual[k] + overlayPayoff(k + 1, S1);
+      mark =
+        k + 1 >= n
+          ? 0
+          : optionHedge
+            ? optionHedge.bookValue(k + 1, state[1], state[0])
+            : lookup(table, k + 1, state[1], state[0], S0).value;
+      if (optionHedge) unit = optionHedge.unitValue(k + 1, state[1], state[0]);
+      const step = mark + held * unit + shares * S1 + cash - before;
       total += step;
       // a step with a scheduled move is booked to it, even when a jump came too
       if (moves.length > 0) eventPart += step;
@@ -215,16 +288,18 @@ export function planReplay(req: ReplayRequest): ReplayPlan {
     }
     // liquidate the hedge at the end
     total -= cost * Math.abs(shares) * S0 * Math.exp(state[0]);
+    total -= cost * Math.abs(held) * Math.abs(unit);
     if (trace) {
       trace.times.push(horizon);
       trace.spot.push(S0 * Math.exp(state[0]));
       trace.variance.push(state[1]);
       trace.shares.push(0);
+      trace.options?.push(0);
       trace.pnl.push(total);
     }
-    return { total, jumpPart, eventPart };
+    return { total, jumpPart, eventPart, overlayPart: overlayCash };
   };
-  return { request: req, steps: n, dt, horizon, premium, runPath };
+  return { request: req, steps: n, dt, horizon, premium, overlayPremium, runPath };
 }
 
 /** The discounted P&L of one block's paths, and the parts booked on jump and move steps. */
@@ -235,14 +310,16 @@ export function replayBlock(plan: ReplayPlan, block: number): BlockPnl {
   const pnl = new Float64Array(count);
   const onJumps = new Float64Array(count);
   const onEvents = new Float64Array(count);
+  const overlay = new Float64Array(count);
   const discount = discountFactor(request.market, plan.horizon);
   for (let p = 0; p < count; p++) {
-    const { total, jumpPart, eventPart } = plan.runPath(rng, null);
+    const { total, jumpPart, eventPart, overlayPart } = plan.runPath(rng, null);
     pnl[p] = total * discount;
     onJumps[p] = jumpPart * discount;
     onEvents[p] = eventPart * discount;
+    overlay[p] = overlayPart * discount;
   }
-  return { pnl, onJumps, onEvents };
+  return { pnl, onJumps, onEvents, overlay };
 }
 
 /** Reruns the block of one path up to it and follows that path step by step. */
@@ -256,6 +333,9 @@ export function tracePath(plan: ReplayPlan, path: number): PathTrace {
     spot: [],
     variance: [],
     shares: [],
+    ...(plan.request.hedge.instrument && isOptionHedge(plan.request.hedge.method)
+      ? { options: [] }
+      : {}),
     pnl: [],
     jumps: [],
     events: [],
@@ -269,20 +349,28 @@ export function joinBlocks(paths: number, blocks: readonly BlockPnl[]): BlockPnl
   const pnl = new Float64Array(paths);
   const onJumps = new Float64Array(paths);
   const onEvents = new Float64Array(paths);
+  const overlay = new Float64Array(paths);
   blocks.forEach((b, i) => {
     pnl.set(b.pnl, i * BLOCK_PATHS);
     onJumps.set(b.onJumps, i * BLOCK_PATHS);
     onEvents.set(b.onEvents, i * BLOCK_PATHS);
+    overlay.set(b.overlay, i * BLOCK_PATHS);
   });
-  return { pnl, onJumps, onEvents };
+  return { pnl, onJumps, onEvents, overlay };
 }
 
-type RunMeta = Pick<ReplayPlan, 'request' | 'steps' | 'premium'>;
+type RunMeta = Pick<ReplayPlan, 'request' | 'steps' | 'premium' | 'overlayPremium'>;
 
 export function replayResult(meta: RunMeta, joined: BlockPnl, elapsedMs: number): ReplayResult {
   return {
-    ...summariseReplay(joined.pnl, joined.onJumps, joined.onEvents),
+    ...summariseReplay(
+      joined.pnl,
+      joined.onJumps,
+      joined.onEvents,
+      (meta.request.overlay?.length ?? 0) > 0 ? joined.overlay : null,
+    ),
     premium: meta.premium,
+    overlayPremium: meta.overlayPremium,
     steps: meta.steps,
     paths: meta.request.paths,
     elapsedMs,

@@ -3,6 +3,7 @@ import { useEffect, useState } from 'react';
 import type { ReplayRequest } from '../../../engine/replay';
 import { usePathTrace } from '../hooks/use-path-trace';
 import { PathDrillDown } from './PathDrillDown';
+import { legendName } from './ReplayCharts';
 
 export function DrillDownPanel({
   requests,
@@ -52,7 +53,7 @@ export function DrillDownPanel({
               show(String(w));
             }}
           >
-            worst path of hedge {k + 1} ({w})
+            worst path, {legendName(requests[k])} ({w})
           </button>
         ))}
         {busy && <span className="text-muted">following the path…</span>}

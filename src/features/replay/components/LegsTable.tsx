@@ -1,4 +1,7 @@
-/** The position builder: one row a European leg, with add and remove and per-row messages. */
+/**
+ * A leg list builder (the position, or its overlay): one row a European leg, with add and
+ * remove and per-row messages.
+ */
 import { useFieldArray, type Control, type UseFormRegister } from 'react-hook-form';
 import type { ReplayForm } from '../form/replay-form';
 
@@ -9,17 +12,25 @@ export function LegsTable({
   register,
   issues,
   spot,
+  name = 'legs',
+  noun = 'Leg',
+  empty = 'No legs: add one to replay.',
 }: {
+  /** which of the form's lists */
+  name?: 'legs' | 'overlay';
+  /** what a row is called in labels and messages */
+  noun?: string;
+  empty?: string;
   control: Control<ReplayForm, unknown, unknown>;
   register: UseFormRegister<ReplayForm>;
   /** a message per row index, from validation */
   issues: Record<number, string>;
   spot: number;
 }) {
-  const { fields, append, remove } = useFieldArray({ control, name: 'legs' });
+  const { fields, append, remove } = useFieldArray({ control, name });
   return (
     <div className="space-y-2">
-      <table className="w-full text-sm" data-testid="legs">
+      <table className="w-full text-sm" data-testid={name}>
         <thead className="text-xs text-muted">
           <tr>
             <th className="text-left font-normal">side</th>
@@ -35,9 +46,9 @@ export function LegsTable({
             <tr key={row.id} className="align-top">
               <td>
                 <select
-                  aria-label={`Leg ${i + 1} side`}
+                  aria-label={`${noun} ${i + 1} side`}
                   className={cell}
-                  {...register(`legs.${i}.side`)}
+                  {...register(`${name}.${i}.side`)}
                 >
                   <option value="long">long</option>
                   <option value="short">short</option>
@@ -45,9 +56,9 @@ export function LegsTable({
               </td>
               <td>
                 <select
-                  aria-label={`Leg ${i + 1} type`}
+                  aria-label={`${noun} ${i + 1} type`}
                   className={cell}
-                  {...register(`legs.${i}.type`)}
+                  {...register(`${name}.${i}.type`)}
                 >
                   <option value="put">put</option>
                   <option value="call">call</option>
@@ -56,17 +67,17 @@ export function LegsTable({
               {(['strike', 'days', 'quantity'] as const).map((k) => (
                 <td key={k}>
                   <input
-                    aria-label={`Leg ${i + 1} ${k}`}
+                    aria-label={`${noun} ${i + 1} ${k}`}
                     inputMode="decimal"
                     className={`${cell} tabular w-full text-right`}
-                    {...register(`legs.${i}.${k}`)}
+                    {...register(`${name}.${i}.${k}`)}
                   />
                 </td>
               ))}
               <td>
                 <button
                   type="button"
-                  aria-label={`Remove leg ${i + 1}`}
+                  aria-label={`Remove ${noun.toLowerCase()} ${i + 1}`}
                   onClick={() => remove(i)}
                   className="px-2 py-1 text-muted hover:text-stressed"
                 >
@@ -79,20 +90,24 @@ export function LegsTable({
       </table>
       {Object.entries(issues).map(([i, m]) => (
         <p key={i} role="alert" className="text-xs text-stressed">
-          {Number(i) >= 0 ? `Leg ${Number(i) + 1}: ` : ''}
+          {Number(i) >= 0 ? `${noun} ${Number(i) + 1}: ` : ''}
           {m}
         </p>
       ))}
-      {fields.length === 0 && <p className="text-xs text-muted">No legs: add one to replay.</p>}
+      {fields.length === 0 && <p className="text-xs text-muted">{empty}</p>}
       <button
         type="button"
-        disabled={fields.length >= 20}
+        disabled={fields.length >= (name === 'legs' ? 20 : 10)}
         onClick={() =>
-          append({ type: 'put', side: 'short', strike: String(spot), days: '7', quantity: '1' })
+          append(
+            name === 'legs'
+              ? { type: 'put', side: 'short', strike: String(spot), days: '7', quantity: '1' }
+              : { type: 'put', side: 'long', strike: String(0.9 * spot), days: '7', quantity: '1' },
+          )
         }
         className="text-sm text-teal disabled:opacity-50"
       >
-        + Add leg
+        + Add {noun.toLowerCase()}
       </button>
     </div>
   );

@@ -17,7 +17,7 @@ export function PathDrillDown({
   const theme = useTheme();
   const figure = useMemo(() => {
     const t = chartTheme(theme);
-    const colours = hedgeColours(t);
+    const colours = hedgeColours(t, requests);
     const axis = { gridcolor: t.grid, zerolinecolor: t.grid, tickfont: { color: t.muted } };
     const first = traces[0];
     const days = first.times.map((s) => s * 365);
@@ -61,8 +61,8 @@ export function PathDrillDown({
         showlegend: false,
       } as Data,
       line(first.variance, '2', t.teal, 'variance'),
-      ...traces.map((tr, k) => line(tr.shares, '3', colours[k], legendName(requests[k], k), true)),
-      ...traces.map((tr, k) => line(tr.pnl, '4', colours[k], legendName(requests[k], k))),
+      ...traces.map((tr, k) => line(tr.shares, '3', colours[k], legendName(requests[k]), true)),
+      ...traces.map((tr, k) => line(tr.pnl, '4', colours[k], legendName(requests[k]))),
     ];
     const layout: Partial<Layout> = {
       ...chartFrame(t, 11),

@@ -6,14 +6,16 @@ import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 import { hasMoves } from './ReplayStats';
+import { SHORT_METHOD_LABELS } from './HedgeFields';
 
 /** Short enough for a legend under a half-width chart. */
-export const legendName = (r: ReplayRequest, k: number) =>
-  `hedge ${k + 1}: ${SHORT_LABELS[r.hedge.method]}`;
-const SHORT_LABELS = { none: 'no hedge', 'bs-delta': 'BS delta', 'model-delta': 'model delta' };
+export const legendName = (r: ReplayRequest) =>
+  `${SHORT_METHOD_LABELS[r.hedge.method]}${(r.overlay?.length ?? 0) > 0 ? ' + overlay' : ''}`;
 
-export function hedgeColours(t: ReturnType<typeof chartTheme>) {
-  return [t.teal, t.base];
+/** One colour per run: the hedges in teal and blue, their overlay runs in the stressed orange and ink. */
+export function hedgeColours(t: ReturnType<typeof chartTheme>, requests: readonly ReplayRequest[]) {
+  const withOverlay = requests.some((r) => (r.overlay?.length ?? 0) > 0);
+  return withOverlay ? [t.teal, t.stressed, t.base, t.ink] : [t.teal, t.base];
 }
 
 export function ReplayCharts({
@@ -28,7 +30,7 @@ export function ReplayCharts({
   const theme = useTheme();
   const figures = useMemo(() => {
     const t = chartTheme(theme);
-    const colours = hedgeColours(t);
+    const colours = hedgeColours(t, requests);
     // a fresh axis object for every chart: Plotly writes its ranges into the layout it is given
     const axis = () => ({ gridcolor: t.grid, zerolinecolor: t.grid, tickfont: { color: t.muted } });
     const layout = (title: string): Partial<Layout> => ({
@@ -36,7 +38,7 @@ export function ReplayCharts({
       margin: { l: 60, r: 10, t: 30, b: 50 },
       height: 320,
       title: { text: title, font: { size: 13 }, x: 0 },
-      legend: legendRow('below', 0.28),
+      legend: legendRow('below', 0.32),
       xaxis: axis(),
       yaxis: axis(),
     });
@@ -49,7 +51,7 @@ export function ReplayCharts({
           type: 'bar',
           x: centres,
           y: h.counts,
-          name: legendName(requests[k], k),
+          name: legendName(requests[k]),
           marker: { color: colours[k], opacity: 0.55 },
         }) as Data,
     );
@@ -84,7 +86,7 @@ export function ReplayCharts({
                 r.attribution.tailDiffusion,
                 r.attribution.tailJumps,
               ],
-          name: legendName(requests[k], k),
+          name: legendName(requests[k]),
           marker: { color: colours[k] },
         }) as Data,
     );

@@ -30,6 +30,7 @@ import {
   defaultReplayForm,
   formIssues,
   replayFormSchema,
+  runsPerHedge,
   type ReplayForm,
 } from '../form/replay-form';
 import { useReplayRun } from '../hooks/use-replay-run';
@@ -70,7 +71,9 @@ function ReplayWorkspace({
     const sub = watch((values) => storeForm(values as ReplayForm));
     return () => sub.unsubscribe();
   }, [watch]);
-  const { legIssues, error: invalid } = formIssues(formState.errors);
+  const overlayRows = watch('overlay');
+  const perHedge = (overlayRows?.length ?? 0) > 0 ? 2 : 1;
+  const { legIssues, overlayIssues, error: invalid } = formIssues(formState.errors, perHedge);
   const formError = stressError ?? invalid;
   const compareOn = watch('compareOn');
   const runs = savedReplayRuns(source.document.runs);
@@ -88,13 +91,15 @@ function ReplayWorkspace({
   const update = (next: ReplayForm) => reset(next);
   const saveRun = async () => {
     if (!view) return;
+    // with an overlay the runs come in pairs (without, with); the saved request carries it
+    const pair = runsPerHedge(view.requests);
     const entry: SavedReplayRun = {
       kind: 'replay',
       id: crypto.randomUUID(),
       savedAt: new Date().toISOString(),
       engineVersion: ENGINE_VERSION,
-      request: view.requests[0],
-      ...(view.requests[1] ? { compare: view.requests[1].hedge } : {}),
+      request: view.requests[pair - 1],
+      ...(view.requests[pair] ? { compare: view.requests[pair].hedge } : {}),
       seed: view.requests[0].seed,
       summaries: view.results.map(summaryOf),
     };
@@ -135,6 +140,21 @@ function ReplayWorkspace({
             register={register}
             issues={legIssues}
             spot={stressed.market.spot}
+          />
+          <h2 className="pt-1 text-sm font-semibold">Overlay</h2>
+          <p className="text-xs text-muted">
+            Options bought or sold at inception at the model&apos;s price and held to expiry. The
+            hedge covers the position and the overlay together; each hedge is replayed without the
+            overlay and with it, on the same paths.
+          </p>
+          <LegsTable
+            control={control}
+            register={register}
+            issues={overlayIssues}
+            spot={stressed.market.spot}
+            name="overlay"
+            noun="Overlay option"
+            empty="No overlay."
           />
           <HedgeFields
             label="Hedge"
@@ -223,8 +243,11 @@ function ReplayWorkspace({
             {view.fromCache
               ? 'opened from the cache'
               : `${view.results.reduce((a, r) => a + r.elapsedMs, 0).toFixed(0)} ms on ${view.workers} worker${view.workers > 1 ? 's' : ''}`}{' '}
-            · position bought for {formatNumber(view.results[0].premium, 4)} (negative: premium
-            received) · P&amp;L discounted to today
+            · premium {view.results[0].premium < 0 ? 'received' : 'paid'} for the position{' '}
+            {formatNumber(Math.abs(view.results[0].premium), 4)}
+            {view.requests.some((r) => (r.overlay?.length ?? 0) > 0) &&
+              `, for the overlay ${view.results.at(-1)!.overlayPremium < 0 ? 'received' : 'paid'} ${formatNumber(Math.abs(view.results.at(-1)!.overlayPremium), 4)}`}{' '}
+            · P&amp;L discounted to today
           </p>
           <ReplayStats requests={view.requests} results={view.results} />
           <div className="flex items-center gap-3">
