@@ -7,7 +7,14 @@ import type {
 } from '../engine/analytic';
 import type { DemoChainRequest } from '../engine/fit';
 import type { Stress, FieldIssue, Market, Model, OptionSpec } from '../engine/core';
-import type { LadderSpec, BookScenario, SetRevaluation, Position } from '../engine/book';
+import type {
+  LadderSpec,
+  BookScenario,
+  SetRevaluation,
+  Position,
+  WingHedge,
+  WingHedgeRequest,
+} from '../engine/book';
 
 export interface PriceRequest {
   market: Market;
@@ -73,12 +80,23 @@ export interface BookRequest {
   volReaction?: number;
 }
 
+export interface WingHedgeCall {
+  market: Market;
+  model: Model;
+  positions: Position[];
+  wingHedge: WingHedgeRequest;
+}
+
 export interface EngineApi {
   info(): { engineVersion: string };
   smiles(request: SmileRequest): SmileResponse;
   price(request: PriceRequest): PriceResponse;
   sensitivities(request: SensitivityRequest): ParameterSensitivity[];
   book(request: BookRequest): SetRevaluation;
+  /** the options to buy against the book's down-gap losses, within a premium budget */
+  wingHedge(request: WingHedgeCall): WingHedge;
+  /** the ladder before and after an overlay found by another measure (the replay pilot) */
+  wingLadder(request: WingHedgeCall & { quantities: number[] }): WingHedge;
   /** an invented chain priced by the model, with noise and bid/ask, as CSV */
   demoChain(request: DemoChainRequest): string;
   /** density of ln(S_T/F) at the given points */

@@ -1,5 +1,5 @@
 /** The engine work behind each worker command, as plain functions (also used by tests). */
-import { revalueSet } from '../engine/book';
+import { revalueSet, suggestWingHedge, wingLadder } from '../engine/book';
 import {
   atmTermStructure,
   impliedEventMoves,
@@ -109,6 +109,9 @@ export const engineHandlers: EngineApi = {
   price: computePrices,
   sensitivities: (req) => smileSensitivities(req.market, req.model, req.expiry, req.moneyness),
   book: (req) => revalueSet(req.base, req.scenarios, req.positions, req.ladder, req.volReaction),
+  wingHedge: (req) => suggestWingHedge(req.market, req.model, req.positions, req.wingHedge),
+  wingLadder: (req) =>
+    wingLadder(req.market, req.model, req.positions, req.wingHedge.instruments, req.quantities),
   demoChain: demoChainCsv,
   density: (model, expiry, points) => logReturnDensity(model, expiry, points),
 };

@@ -1,6 +1,8 @@
 /** The hedge replay worker: runs the blocks it is given and follows single paths. */
 import type {
   BlockPnl,
+  PilotWingHedge,
+  PilotWingRequest,
   PathTrace,
   ReplayPlan,
   ReplayRequest,
@@ -27,6 +29,8 @@ export interface FinishedRun {
 export interface ReplayApi {
   runBlocks(request: ReplayRequest, blocks: number[], onBlock: () => void): ReplayBlocksDone;
   trace(request: ReplayRequest, path: number): PathTrace;
+  /** a wing hedge by the pilot run's ES99 (several small replays: seconds, so off the engine) */
+  wingPilot(request: PilotWingRequest): PilotWingHedge;
   /** Joins and summarises runs (the sort for VaR and ES included) off the page's thread. */
   finish(
     runs: FinishedRun[],

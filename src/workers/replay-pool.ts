@@ -7,6 +7,8 @@
 import { proxy, transfer, wrap, type Remote } from 'comlink';
 import {
   blockCountFor,
+  type PilotWingHedge,
+  type PilotWingRequest,
   type PnlHistogram,
   type ReplayRequest,
   type ReplayResult,
@@ -102,4 +104,12 @@ let tracer: Remote<ReplayApi> | null = null;
 export function tracePathInWorker(request: ReplayRequest, path: number) {
   tracer ??= wrap<ReplayApi>(makeWorker());
   return tracer.trace(request, path);
+}
+
+let pilot: Remote<ReplayApi> | null = null;
+
+/** A wing hedge by a pilot replay's ES99, in a worker of its own. */
+export function wingPilotInWorker(request: PilotWingRequest): Promise<PilotWingHedge> {
+  pilot ??= wrap<ReplayApi>(makeWorker());
+  return pilot.wingPilot(request);
 }

@@ -7,6 +7,7 @@ import {
   tracePath,
   type ReplayPlan,
   sharedHistograms,
+  suggestWingHedgeByReplay,
 } from '../engine/replay';
 import type { ReplayApi, ReplayBlocksDone } from './replay-api';
 
@@ -52,6 +53,7 @@ const api: ReplayApi = {
   trace(request, path) {
     return tracePath(planFor(request), path);
   },
+  wingPilot: suggestWingHedgeByReplay,
   finish(runs, bins) {
     const joined = runs.map((r) => joinBlocks(r.meta.request.paths, r.blocks));
     return {

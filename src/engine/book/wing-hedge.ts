@@ -3,8 +3,10 @@
  * ladder loss over a range of down moves (−30 % to −5 % by default) is as small as it can be,
  * for at most a premium budget. The ladder is the model's (instant moves revalued through the
  * model, as on the Book page), so the problem is linear in the quantities: minimise t subject to
- * −(L_book(m) + Σ q_j L_j(m)) ≤ t at every move m, Σ q_j·price_j ≤ budget, 0 ≤ q_j ≤ cap, a
- * linear programme solved by javascript-lp-solver's simplex.
+ * −(L_book(m) + Σ q_j L_j(m)) ≤ t at every move m, t ≥ 0, Σ q_j·price_j ≤ budget, 0 ≤ q_j ≤ cap,
+ * a linear programme solved by javascript-lp-solver's simplex. The floor t ≥ 0 and a small
+ * premium term in the objective make it buy no more than it takes to stop the worst loss, and
+ * the cheapest mix that does: turning a crash into a gain is not what a wing hedge is for.
  */
 import solver, { type SolveResult } from 'javascript-lp-solver';
 import { priceOptions } from '../analytic/pricing';
@@ -42,12 +44,20 @@ export interface WingHedge {
 
 export const DEFAULT_WING_RANGE = { from: -0.3, to: -0.05, steps: 26 } as const;
 
-export function suggestWingHedge(
+interface LadderParts {
+  moves: number[];
+  before: number[];
+  /** per instrument and move: its ladder P&L per unit */
+  unit: number[][];
+  prices: number[];
+}
+
+function ladderParts(
   market: Market,
   model: Model,
   positions: readonly Position[],
-  req: WingHedgeRequest,
-): WingHedge {
+  req: Pick<WingHedgeRequest, 'instruments' | 'from' | 'to' | 'steps'>,
+): LadderParts {
   const moves = ladderMoves({
     from: req.from ?? DEFAULT_WING_RANGE.from,
     to: req.to ?? DEFAULT_WING_RANGE.to,
@@ -65,8 +75,44 @@ export function suggestWingHedge(
   }));
   const values = legValuesAtMoves(market, model, legs, all);
   const prices = priceOptions(market, model, req.instruments).map((p) => p.price);
-  // per instrument and move: its ladder P&L per unit
   const unit = req.instruments.map((_, j) => moves.map((_, i) => values[i + 1][j] - values[0][j]));
+  return { moves, before, unit, prices };
+}
+
+function withQuantities(parts: LadderParts, quantities: number[]): WingHedge {
+  const { moves, before, unit, prices } = parts;
+  const after = before.map((b, i) => b + quantities.reduce((a, q, j) => a + q * unit[j][i], 0));
+  return {
+    quantities,
+    prices,
+    premium: quantities.reduce((a, q, j) => a + q * prices[j], 0),
+    moves,
+    before,
+    after,
+    worstBefore: Math.min(...before),
+    worstAfter: Math.min(...after),
+  };
+}
+
+/** The ladder before and after a given overlay of the instruments (from any objective). */
+export function wingLadder(
+  market: Market,
+  model: Model,
+  positions: readonly Position[],
+  instruments: WingHedgeRequest['instruments'],
+  quantities: number[],
+): WingHedge {
+  return withQuantities(ladderParts(market, model, positions, { instruments }), quantities);
+}
+
+export function suggestWingHedge(
+  market: Market,
+  model: Model,
+  positions: readonly Position[],
+  req: WingHedgeRequest,
+): WingHedge {
+  const parts = ladderParts(market, model, positions, req);
+  const { moves, before, unit, prices } = parts;
   const size = positions.reduce(
     (a, p) => a + (p.type === 'underlying' ? 0 : Math.abs(p.quantity)),
     0,
@@ -87,31 +133,31 @@ export function suggestWingHedge(
     ]);
     constraints[`cap${j}`] = { max: cap };
   });
+  // the premium's weight: small beside a unit of loss, so it only breaks ties among optimal mixes
+  const tie = 1e-6;
+  req.instruments.forEach((_, j) => (variables[`q${j}`].worst = tie * prices[j]));
   const solution = solver.Solve({
     optimize: 'worst',
     opType: 'min',
     constraints,
     variables,
-    unrestricted: { worst: 1 },
   }) as SolveResult;
-  const quantities = req.instruments.map((_, j) => {
+  return withQuantities(parts, solvedQuantities(solution, prices, req.budget));
+}
+
+/**
+ * The quantities q0, q1, … of a solved programme (0 where it found none), scaled back onto the
+ * budget when the solver's rounding tipped the premium over it.
+ */
+export function solvedQuantities(
+  solution: SolveResult,
+  prices: number[],
+  budget: number,
+): number[] {
+  const quantities = prices.map((_, j) => {
     const q = solution.feasible ? Number(solution[`q${j}`] ?? 0) : 0;
     return q > 1e-9 ? q : 0;
   });
-  // the solver rounds its answer: scale back onto the budget when that tipped it over
   const raw = quantities.reduce((a, q, j) => a + q * prices[j], 0);
-  if (raw > req.budget && raw > 0)
-    quantities.forEach((q, j) => (quantities[j] = (q * req.budget) / raw));
-  const premium = quantities.reduce((a, q, j) => a + q * prices[j], 0);
-  const after = before.map((b, i) => b + quantities.reduce((a, q, j) => a + q * unit[j][i], 0));
-  return {
-    quantities,
-    prices,
-    premium,
-    moves,
-    before,
-    after,
-    worstBefore: Math.min(...before),
-    worstAfter: Math.min(...after),
-  };
+  return raw > budget && raw > 0 ? quantities.map((q) => (q * budget) / raw) : quantities;
 }

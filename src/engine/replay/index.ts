@@ -5,3 +5,4 @@ export * from './replay-summary';
 export * from './replay';
 export * from './request-schema';
 export * from './option-hedge';
+export * from './wing-hedge-pilot';

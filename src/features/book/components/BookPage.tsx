@@ -6,6 +6,8 @@ import { PnlMatrix } from './PnlMatrix';
 import { PositionsTable } from './PositionsTable';
 import { PositionsUpload } from './PositionsUpload';
 import { BookPanel } from './BookPanel';
+import { JumpExposurePanel } from './JumpExposurePanel';
+import { WingHedgePanel } from './WingHedgePanel';
 import { CautionNote } from '../../../components/CautionNote';
 import { formatNumber } from '../../../components/format';
 import { DEFAULT_VOL_REACTION, type Position } from '../../../engine/book';
@@ -18,6 +20,15 @@ import {
   useRevaluation,
   useUpdateBook,
 } from '../hooks/use-book';
+
+/** A third of the premium the short options took in, to two significant figures (at least 1). */
+function startingBudget(legs: { value: number }[], positions: Position[]): number {
+  const received = legs.reduce(
+    (a, l, i) => a + (positions[i]?.type !== 'underlying' && l.value < 0 ? -l.value : 0),
+    0,
+  );
+  return Math.max(1, Number((received / 3).toPrecision(2)));
+}
 
 const today = () => new Date().toISOString().slice(0, 10);
 
@@ -67,6 +78,8 @@ export function BookPage() {
 
   if (sets.isPending || scenarios.isPending) return <p className="text-muted">Opening the book…</p>;
   const positions = (current?.positions ?? []) as Position[];
+  const members = (scenarios.data ?? []).filter((s) => current?.scenarioIds.includes(s.id));
+  const baseScenario = members.find((s) => s.id === current?.baseScenarioId) ?? members[0];
   const legIndex = positions.findIndex((p) => p.id === selectedLeg);
   const data = result.data;
 
@@ -217,6 +230,16 @@ export function BookPage() {
                         scenarioIndex={Math.min(ladderScenario, data.scenarios.length - 1)}
                       />
                     </div>
+                    <JumpExposurePanel result={data} />
+                    {baseScenario && (
+                      <WingHedgePanel
+                        scenarioId={baseScenario.id}
+                        market={baseScenario.document.market}
+                        model={baseScenario.document.model}
+                        positions={positions}
+                        defaultBudget={startingBudget(data.base.legs, positions)}
+                      />
+                    )}
                   </>
                 )}
               </>

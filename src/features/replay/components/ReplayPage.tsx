@@ -25,7 +25,9 @@ import {
 import { ENGINE_VERSION } from '../../../engine/core';
 import { useSaveScenario } from '../../../store/hooks';
 import { useScenarioSource } from '../../../store/use-scenario-source';
-import { formFromRun, loadForm, storeForm } from '../form/form-storage';
+import { formFromRun, formWithOverlay, loadForm, storeForm } from '../form/form-storage';
+import { takeReplayHandover } from '../../../store/replay-handover';
+import { useSearchParams } from 'react-router';
 import {
   defaultReplayForm,
   formIssues,
@@ -58,7 +60,7 @@ function ReplayWorkspace({
   const save = useSaveScenario();
   // the requests are checked against the chosen scenario's market and model of the moment
   const resolver = useSchemaResolver(() => replayFormSchema(stressed.market, stressed.model));
-  const { control, register, handleSubmit, watch, reset, formState } = useForm<
+  const { control, register, handleSubmit, watch, reset, formState, getValues } = useForm<
     ReplayForm,
     unknown,
     ReplayRequest[]
@@ -78,6 +80,21 @@ function ReplayWorkspace({
   const compareOn = watch('compareOn');
   const runs = savedReplayRuns(source.document.runs);
 
+  // a position handed over by another page (the Book's wing hedge) opens here and runs at once,
+  // on the seed it was found on and this form's path count
+  const [params, setParams] = useSearchParams();
+  const [pendingRun, setPendingRun] = useState<string | null>(null);
+  useEffect(() => {
+    if (!params.has('handover')) return;
+    const handover = takeReplayHandover();
+    setParams({}, { replace: true });
+    if (!handover) return;
+    setSourceId(handover.scenarioId);
+    reset(formWithOverlay(getValues(), handover.legs, handover.overlay, handover.seed));
+    setPendingRun(handover.scenarioId);
+    // once, on arrival
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
   const go = handleSubmit((requests) => {
     setSaved(false);
     setCheck(null);
@@ -88,6 +105,11 @@ function ReplayWorkspace({
     setStressError(null);
     void start(requests);
   });
+  useEffect(() => {
+    if (pendingRun === null || source.id !== pendingRun) return;
+    setPendingRun(null);
+    void go();
+  }, [pendingRun, source.id, go]);
   const update = (next: ReplayForm) => reset(next);
   const saveRun = async () => {
     if (!view) return;

@@ -62,8 +62,18 @@ const legRow = (l: Leg): LegRow => ({
 });
 
 /** A form for a leg list handed over from another page (the Book's wing hedge). */
-export function formWithOverlay(form: ReplayForm, legs: Leg[], overlay: Leg[]): ReplayForm {
-  return { ...form, legs: legs.map(legRow), overlay: overlay.map(legRow) };
+export function formWithOverlay(
+  form: ReplayForm,
+  legs: Leg[],
+  overlay: Leg[],
+  seed?: number,
+): ReplayForm {
+  return {
+    ...form,
+    legs: legs.map(legRow),
+    overlay: overlay.map(legRow),
+    ...(seed !== undefined ? { seed: String(seed) } : {}),
+  };
 }
 
 export function formFromRun(run: SavedReplayRun): ReplayForm {
