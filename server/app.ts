@@ -16,6 +16,9 @@ import { healthRouter } from './routes/health';
 import { passwordRouter } from './routes/password';
 import { setsRouter } from './routes/sets';
 import { syncRouter } from './routes/sync';
+import { postgresLimitStores } from './auth/rate-limit-store';
+import { createLogger, requestLogger, type Logger } from './logging';
+import type { ChangeEvents } from './sync/events';
 
 export interface AppOptions {
   db: Knex;
@@ -23,7 +26,17 @@ export interface AppOptions {
   /** folder of the built client; omitted in API-only and test setups */
   staticDir?: string;
   secureCookies?: boolean;
+  /** where log lines go when no logger is given (JSON lines; tests pass a sink) */
   log?: (line: string) => void;
+  logger?: Logger;
+  /** production: no mailbox page (404 at /dev/mailbox) */
+  production?: boolean;
+  /** Express's `trust proxy` (false: forwarded headers are ignored) */
+  trustProxy?: boolean | number | string;
+  /** the live-updates hub; without it /api/sync/events answers 503 and clients poll */
+  events?: ChangeEvents;
+  /** a prefix for this app's rate-limit counters (tests keep theirs apart; instances share "") */
+  rateLimitScope?: string;
   /** invite and reset mail */
   mailer: Mailer;
   /** the public URL invite and reset links are built from */
@@ -33,10 +46,12 @@ export interface AppOptions {
 }
 
 export function createApp(opts: AppOptions): Express {
-  const log = opts.log ?? ((line: string) => console.log(line));
+  const logger = opts.logger ?? createLogger(opts.log);
+  const log = (line: string) => logger.info(line);
+  const limitStore = postgresLimitStores(opts.db, opts.rateLimitScope);
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', false);
+  app.set('trust proxy', opts.trustProxy ?? false);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -53,23 +68,7 @@ export function createApp(opts: AppOptions): Express {
       },
     }),
   );
-  app.use((req, res, next) => {
-    const started = process.hrtime.bigint();
-    res.on('finish', () => {
-      if (!req.path.startsWith('/api')) return;
-      const ms = Number(process.hrtime.bigint() - started) / 1e6;
-      log(
-        JSON.stringify({
-          at: new Date().toISOString(),
-          method: req.method,
-          path: req.path,
-          status: res.statusCode,
-          ms: Math.round(ms * 10) / 10,
-        }),
-      );
-    });
-    next();
-  });
+  app.use(requestLogger(logger));
 
   const api = express.Router();
   const appOrigin = new URL(opts.appUrl).origin;
@@ -79,9 +78,9 @@ export function createApp(opts: AppOptions): Express {
   api.use(cookieParser());
   api.use(refuseForeignOrigins(appOrigin));
   const auth = requireUser(opts.db, opts.jwtSecret);
-  const secure = opts.secureCookies ?? false;
+  const secure = opts.secureCookies ?? opts.appUrl.startsWith('https:');
   api.use(healthRouter(opts.db));
-  api.use(authRouter(opts.db, opts.jwtSecret, secure));
+  api.use(authRouter(opts.db, opts.jwtSecret, secure, limitStore));
   api.use(
     passwordRouter(
       opts.db,
@@ -91,16 +90,22 @@ export function createApp(opts: AppOptions): Express {
       opts.appUrl,
       (res, token) => setSessionCookie(res, token, secure),
       log,
+      limitStore,
     ),
   );
   api.use(desksRouter(opts.db, auth, opts.mailer, opts.appUrl));
   api.use(setsRouter(opts.db, auth));
-  api.use(syncRouter(opts.db, auth));
+  api.use(syncRouter(opts.db, auth, opts.events));
   api.use((req, _res, next) =>
     next(new HttpError(404, 'not-found', `no route ${req.method} /api${req.path}`)),
   );
   app.use('/api', api);
-  if (opts.mailboxDir) app.get('/dev/mailbox', mailboxPage(opts.mailboxDir));
+  if (opts.mailboxDir && !opts.production) app.get('/dev/mailbox', mailboxPage(opts.mailboxDir));
+  // never the app's page either: a reachable service must not look as if it had a mailbox
+  else
+    app.get('/dev/mailbox', (_req, res) => {
+      res.status(404).type('text/plain').send('Not found');
+    });
 
   if (opts.staticDir && existsSync(join(opts.staticDir, 'index.html'))) {
     const dir = opts.staticDir;
@@ -121,7 +126,7 @@ export function createApp(opts: AppOptions): Express {
       res.sendFile(join(dir, 'index.html'));
     });
   }
-  app.use(errorHandler(log));
+  app.use(errorHandler((line) => logger.error(line)));
   return app;
 }
 

@@ -14,18 +14,38 @@ export function createDb(connectionString: string): Knex {
   });
 }
 
-/** Runs pending migrations; errors say which migration failed. */
+/** Any fixed number: the advisory lock under which instances migrate, one at a time. */
+const MIGRATION_LOCK = 4_310_001;
+
+/**
+ * Runs pending migrations under a PostgreSQL advisory lock held by a transaction, so that
+ * instances starting together migrate once: the others wait, then find nothing pending.
+ * Errors say which migration failed.
+ */
 export async function migrate(db: Knex): Promise<string[]> {
   try {
-    const [, applied] = (await db.migrate.latest()) as [number, string[]];
-    return applied;
+    return await db.transaction(async (trx) => {
+      await trx.raw('select pg_advisory_xact_lock(?)', [MIGRATION_LOCK]);
+      const [, applied] = (await db.migrate.latest()) as [number, string[]];
+      return applied;
+    });
   } catch (error) {
     throw new Error(`A database migration failed: ${(error as Error).message}`, { cause: error });
   }
 }
 
+/** The names of migrations not yet applied. */
+export async function pendingMigrations(db: Knex): Promise<string[]> {
+  const [, pending] = (await db.migrate.list()) as [unknown[], { file: string }[]];
+  return pending.map((m) => m.file);
+}
+
+/** The demo desk, under the same lock (two instances starting together seed it once). */
 export async function seed(db: Knex): Promise<void> {
-  await db.seed.run();
+  await db.transaction(async (trx) => {
+    await trx.raw('select pg_advisory_xact_lock(?)', [MIGRATION_LOCK]);
+    await db.seed.run();
+  });
 }
 
 export async function databaseIsUp(db: Knex): Promise<boolean> {

@@ -17,6 +17,8 @@ export interface SessionUser {
 declare module 'express-serve-static-core' {
   interface Request {
     user?: SessionUser;
+    /** when the caller's session token was issued (the events stream re-checks it) */
+    sessionIssuedAtMs?: number;
   }
 }
 
@@ -53,6 +55,7 @@ export function requireUser(db: Knex, secret: string) {
       return next(new HttpError(401, 'unauthenticated', 'session expired; sign in again'));
     }
     req.user = { id: user.id, email: user.email, name: user.name, memberships: user.memberships };
+    req.sessionIssuedAtMs = claims.issuedAtMs;
     next();
   };
 }

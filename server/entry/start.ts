@@ -1,7 +1,8 @@
 /**
  * `npm start`: the whole product on one machine. Starts the project's PostgreSQL (unless
- * DATABASE_URL is set), migrates and seeds it, builds the client, and serves the PWA and `/api`
- * from one process on 127.0.0.1. Ctrl-C stops the server and the database cleanly.
+ * DATABASE_URL is set), migrates it and (outside production) seeds the demo desk, builds the
+ * client, and serves the PWA and `/api` from one process on HOST (127.0.0.1; 0.0.0.0 in
+ * production). Ctrl-C or SIGTERM drains requests and stops the server and the database cleanly.
  */
 import type { Server } from 'node:http';
 import { fileURLToPath } from 'node:url';
@@ -9,7 +10,10 @@ import { build } from 'vite';
 import { createApp } from '../app';
 import { startProjectCluster } from '../bootstrap/cluster-home';
 import { portIsFree, SetupError, type EmbeddedPostgres } from '../bootstrap/postgres';
-import { loadConfig } from '../config';
+import { ConfigError, loadConfig } from '../config';
+import { createLogger } from '../logging';
+import { drain, listen } from '../serve';
+import { ChangeEvents } from '../sync/events';
 import { createDb, migrate, seed } from '../db';
 import { DEMO_DESK, DEMO_USERS } from '../demo';
 import { setUpMail, type MailSetup } from '../mail/setup';
@@ -23,6 +27,7 @@ async function main() {
       `Port ${config.port} on 127.0.0.1 is in use. Stop what holds it, or run: PORT=4320 npm start`,
     );
   }
+  const logger = createLogger();
   let pg: EmbeddedPostgres | undefined;
   let url = config.databaseUrl;
   if (!url) {
@@ -32,14 +37,13 @@ async function main() {
   const db = createDb(url);
   let server: Server | undefined;
   let mail: MailSetup | undefined;
+  let events: ChangeEvents | undefined;
   let stopping = false;
   const stop = async (code: number) => {
     if (stopping) return;
     stopping = true;
     console.log('\nStopping Saltation…');
-    await new Promise<void>((resolve) => (server ? server.close(() => resolve()) : resolve()));
-    await db.destroy().catch(() => undefined);
-    await mail?.close();
+    await drain(server, db, events, () => mail?.close());
     pg?.stop();
     process.exit(code);
   };
@@ -48,12 +52,13 @@ async function main() {
   try {
     const applied = await migrate(db);
     if (applied.length > 0) console.log(`Applied migrations: ${applied.join(', ')}`);
-    await seed(db);
+    if (!config.production) await seed(db);
     if (process.env.SALTATION_SKIP_BUILD !== '1') {
       console.log('Building the client…');
       await build({ root, logLevel: 'warn' });
     }
     mail = await setUpMail(config);
+    events = await ChangeEvents.start(url, db, logger);
     const app = createApp({
       db,
       jwtSecret: config.jwtSecret,
@@ -61,28 +66,33 @@ async function main() {
       mailer: mail.mailer,
       appUrl: config.appUrl,
       mailboxDir: mail.mailboxDir,
+      production: config.production,
+      trustProxy: config.trustProxy,
+      logger,
+      events,
     });
-    server = app.listen(config.port, '127.0.0.1');
-    await new Promise<void>((resolve, reject) => {
-      server!.once('listening', () => resolve());
-      server!.once('error', reject);
-    });
+    server = await listen(app, config.host, config.port);
   } catch (error) {
     console.error(`\n${(error as Error).message}`);
     await stop(1);
     return;
   }
-  console.log(`\nSaltation is running at ${config.appUrl}/`);
-  console.log(`Demo desk "${DEMO_DESK}" sign-ins:`);
-  for (const u of DEMO_USERS)
-    console.log(`  ${u.role.padEnd(8)} ${u.email.padEnd(24)} ${u.password}`);
+  console.log(
+    `\nSaltation is running at ${config.appUrl}/ (listening on ${config.host}:${config.port})`,
+  );
+  if (!config.production) {
+    console.log(`Demo desk "${DEMO_DESK}" sign-ins:`);
+    for (const u of DEMO_USERS)
+      console.log(`  ${u.role.padEnd(8)} ${u.email.padEnd(24)} ${u.password}`);
+  }
   if (mail?.mailboxDir)
     console.log(`Invite and reset e-mails are kept locally: ${config.appUrl}/dev/mailbox`);
   console.log('Press Ctrl-C to stop.');
 }
 
 main().catch((error: unknown) => {
-  if (error instanceof SetupError) console.error(`\n${error.message}`);
+  if (error instanceof SetupError || error instanceof ConfigError)
+    console.error(`\n${error.message}`);
   else
     console.error('\nSaltation could not start:', error instanceof Error ? error.message : error);
   process.exit(1);

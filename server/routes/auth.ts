@@ -1,6 +1,7 @@
 /** Accounts: register, sign in (JSON token and session cookie), sign out, current user. */
 import { Router, type Response } from 'express';
 import rateLimit from 'express-rate-limit';
+import type { LimitStore } from '../auth/rate-limit-store';
 import type { Knex } from 'knex';
 import { registerBody, signinBody } from '../../src/contracts';
 import { hashPassword, verifyPassword } from '../auth/passwords';
@@ -20,16 +21,24 @@ export function setSessionCookie(res: Response, token: string, secure: boolean) 
   });
 }
 
-export function authRouter(db: Knex, secret: string, secureCookies: boolean): Router {
+export function authRouter(
+  db: Knex,
+  secret: string,
+  secureCookies: boolean,
+  limitStore: LimitStore,
+): Router {
   const r = Router();
-  // The limiters run before argon2, so a flood of bad sign-ins cannot starve the thread pool.
+  // The limiters run before argon2, so a flood of bad sign-ins cannot starve the thread pool;
+  // their counters live in PostgreSQL, shared by every instance.
   const perAddress = rateLimit({
+    store: limitStore('signin-address'),
     windowMs: 60_000,
     limit: 30,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
   });
   const perAccount = rateLimit({
+    store: limitStore('signin-account'),
     windowMs: 15 * 60_000,
     limit: 10,
     standardHeaders: 'draft-8',

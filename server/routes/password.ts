@@ -5,6 +5,7 @@
  */
 import { Router, type RequestHandler, type Response } from 'express';
 import rateLimit from 'express-rate-limit';
+import type { LimitStore } from '../auth/rate-limit-store';
 import type { Knex } from 'knex';
 import {
   passwordChangeBody as changeBody,
@@ -27,9 +28,11 @@ export function passwordRouter(
   appUrl: string,
   setSession: (res: Response, token: string) => void,
   log: (line: string) => void,
+  limitStore: LimitStore,
 ) {
   const r = Router();
   const limit = rateLimit({
+    store: limitStore('password'),
     windowMs: 15 * 60_000,
     limit: 20,
     standardHeaders: 'draft-8',

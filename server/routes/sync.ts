@@ -2,14 +2,19 @@
 import { Router, type RequestHandler } from 'express';
 import type { Knex } from 'knex';
 import { isUuid, setStanding } from '../access';
-import { notFound, parseOr400 } from '../errors';
+import { HttpError, notFound, parseOr400 } from '../errors';
+import type { ChangeEvents } from '../sync/events';
 import { pullQuery, pushBody, type MutationResult } from '../../src/contracts';
 import { applyMutation } from '../sync/push';
 import { pull } from '../sync/pull';
 import { listRevisions, setOfScenario } from '../services/revisions';
 
-export function syncRouter(db: Knex, auth: RequestHandler): Router {
+export function syncRouter(db: Knex, auth: RequestHandler, events?: ChangeEvents): Router {
   const r = Router();
+  r.get('/sync/events', auth, async (req, res) => {
+    if (!events) throw new HttpError(503, 'no-live-updates', 'live updates are off; poll instead');
+    await events.subscribe(req, res, req.sessionIssuedAtMs ?? 0);
+  });
   r.post('/sync/push', auth, async (req, res) => {
     const body = parseOr400(pushBody, req.body, 'body');
     const results: MutationResult[] = [];

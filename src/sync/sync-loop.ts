@@ -1,13 +1,15 @@
 /**
  * The browser's sync loop while someone is signed in: a round at start, every 20 s, when the
- * browser comes back online, and shortly after each local save; after a failure it waits
- * 2, 4, 8… up to 60 s. The status is a small external store for React.
+ * browser comes back online, shortly after each local save, and at once when the service's
+ * live-update stream says a visible space changed; after a failure it waits 2, 4, 8… up to
+ * 60 s. The status is a small external store for React.
  */
 import { useSyncExternalStore } from 'react';
 import { apiFetch } from '../api/client';
 import { appDb } from '../store/db';
 import type { SyncTransport } from './protocol';
 import { syncOnce, type SyncReport } from './sync-engine';
+import { closeLiveEvents, openLiveEvents } from './live-events';
 
 export interface SyncStatus {
   state: 'signed-out' | 'idle' | 'syncing' | 'offline' | 'error';
@@ -56,6 +58,8 @@ async function round(): Promise<void> {
       set({ state: 'idle', lastSyncedAt: Date.now(), lastReport: report, error: null });
       onSynced();
       schedule(20_000);
+      // the service answers: listen for changes (a no-op while a stream is open)
+      openLiveEvents(() => void round());
     } catch (e) {
       failures++;
       const offline = typeof navigator !== 'undefined' && !navigator.onLine;
@@ -91,6 +95,7 @@ export function startSync(id: string, afterSync: () => void): void {
 
 export function stopSync(): void {
   userId = null;
+  closeLiveEvents();
   if (timer) clearTimeout(timer);
   timer = null;
   window.removeEventListener('online', online);

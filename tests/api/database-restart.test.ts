@@ -45,6 +45,7 @@ describe('a database restart', () => {
       db,
       jwtSecret: 'restart',
       log: () => undefined,
+      rateLimitScope: `test-${Math.random().toString(36).slice(2)}:`,
       mailer: mail.mailer,
       appUrl: 'http://app.test',
     });

@@ -28,6 +28,8 @@ export function apiFixture() {
       db,
       jwtSecret: 'api-test-secret',
       log: () => undefined,
+      // each test file counts its own sign-ins, as separate services would
+      rateLimitScope: `test-${Math.random().toString(36).slice(2)}:`,
       mailer: mail.mailer,
       appUrl: APP_URL,
     });

@@ -7,6 +7,8 @@ import { smtpMailer, type Mailer } from '../../server/mail/mailer';
 
 export interface TestMail {
   mailer: Mailer;
+  /** the fake's SMTP URL, for a service started in another process */
+  url: string;
   dir: string;
   /** waits for a message to this address whose text matches, and returns the link in it */
   linkFor: (to: string, pattern: RegExp) => Promise<string>;
@@ -19,6 +21,7 @@ export async function testMail(): Promise<TestMail> {
   const fake = await startFakeSmtp(dir);
   return {
     mailer: smtpMailer(fake.url),
+    url: fake.url,
     dir,
     all: () => readMailbox(dir),
     linkFor: async (to, pattern) => {

@@ -5,6 +5,7 @@ import {
   planReplay,
   replay,
   replayRequestSchema,
+  runRequests,
   tracePath,
   type ReplayRequest,
 } from '../../src/engine/replay';
@@ -154,5 +155,30 @@ describe('hedging with a second option', () => {
       },
     });
     expect(early.error!.issues[0].path.join('.')).toBe('hedge.instrument.expiry');
+  });
+});
+
+describe('saved runs with an overlay', () => {
+  it('recompute as each hedge without the overlay, then with it, in the order the page ran them', () => {
+    const request: ReplayRequest = {
+      market,
+      model: bs,
+      position: [{ type: 'put', strike: 95, expiry: 0.1, quantity: -1 }],
+      overlay: [{ type: 'put', strike: 85, expiry: 0.1, quantity: 2 }],
+      hedge: { method: 'model-delta', rebalancesPerDay: 1, costBps: 0 },
+      paths: 100,
+      seed: 1,
+    };
+    const runs = runRequests({
+      request,
+      compare: { method: 'bs-delta', rebalancesPerDay: 1, costBps: 0 },
+    });
+    expect(runs.map((r) => [r.hedge.method, r.overlay?.length ?? 0])).toEqual([
+      ['model-delta', 0],
+      ['model-delta', 1],
+      ['bs-delta', 0],
+      ['bs-delta', 1],
+    ]);
+    expect(runRequests({ request: { ...request, overlay: undefined } })).toHaveLength(1);
   });
 });
