@@ -5,7 +5,7 @@ import { isUuid, setStanding } from '../access';
 import { HttpError, notFound, parseOr400 } from '../errors';
 import type { ChangeEvents } from '../sync/events';
 import { pullQuery, pushBody, type MutationResult } from '../../src/contracts';
-import { applyMutation } from '../sync/push';
+import { applyPush } from '../sync/push-batch';
 import { pull } from '../sync/pull';
 import { listRevisions, setOfScenario } from '../services/revisions';
 
@@ -17,9 +17,8 @@ export function syncRouter(db: Knex, auth: RequestHandler, events?: ChangeEvents
   });
   r.post('/sync/push', auth, async (req, res) => {
     const body = parseOr400(pushBody, req.body, 'body');
-    const results: MutationResult[] = [];
-    // in order: a later mutation of the same scenario builds on the earlier one
-    for (const m of body.mutations) results.push(await applyMutation(db, req.user!.id, m));
+    // one transaction; in order: a later mutation of the same scenario builds on the earlier one
+    const results: MutationResult[] = await applyPush(db, req.user!.id, body.mutations);
     res.json({ results });
   });
 
