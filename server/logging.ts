@@ -28,9 +28,11 @@ export function requestLogger(logger: Logger) {
     },
     autoLogging: { ignore: (req: IncomingMessage) => !pathOf(req).startsWith('/api') },
     customAttributeKeys: { responseTime: 'ms' },
-    customProps: (req: IncomingMessage) => ({
-      userId: (req as IncomingMessage & { user?: { id: string } }).user?.id ?? null,
-    }),
+    // at the response, once the session is known (an anonymous request has no userId)
+    customProps: (req: IncomingMessage) => {
+      const user = (req as IncomingMessage & { user?: { id: string } }).user;
+      return user ? { userId: user.id } : {};
+    },
     serializers: {
       req: (req: { id: string; method: string; url: string }) => ({
         id: req.id,

@@ -53,6 +53,15 @@ export function SessionBar() {
       >
         {label}
       </button>
+      {status.live && (
+        <span
+          className="text-xs text-teal"
+          data-testid="live-updates"
+          title="Colleagues' edits arrive as they are saved"
+        >
+          live
+        </span>
+      )}
       <Link to="/account" className="text-ink/80 hover:text-teal" data-testid="account-link">
         {me.data.user.name}
       </Link>

@@ -16,9 +16,17 @@ export interface SyncStatus {
   lastSyncedAt: number | null;
   lastReport: SyncReport | null;
   error: string | null;
+  /** the service's live-update stream is open: colleagues' edits arrive at once */
+  live: boolean;
 }
 
-let status: SyncStatus = { state: 'signed-out', lastSyncedAt: null, lastReport: null, error: null };
+let status: SyncStatus = {
+  state: 'signed-out',
+  lastSyncedAt: null,
+  lastReport: null,
+  error: null,
+  live: false,
+};
 const listeners = new Set<() => void>();
 const set = (next: Partial<SyncStatus>) => {
   status = { ...status, ...next };
@@ -59,7 +67,10 @@ async function round(): Promise<void> {
       onSynced();
       schedule(20_000);
       // the service answers: listen for changes (a no-op while a stream is open)
-      openLiveEvents(() => void round());
+      openLiveEvents(
+        () => void round(),
+        (live) => set({ live }),
+      );
     } catch (e) {
       failures++;
       const offline = typeof navigator !== 'undefined' && !navigator.onLine;

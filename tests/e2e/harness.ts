@@ -6,7 +6,9 @@ import { chromium, type Browser, type BrowserContext, type Page } from 'playwrig
 import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../server/app';
 import { freePort } from '../../server/bootstrap/postgres';
-import { testDb } from '../support/database';
+import { testDatabaseUrl, testDb } from '../support/database';
+import { createLogger } from '../../server/logging';
+import { ChangeEvents } from '../../server/sync/events';
 import { testMail, type TestMail } from '../support/mail';
 import { CHROMIUM_ARGS, ensureChromium } from './chromium';
 
@@ -25,11 +27,15 @@ export async function startApp(): Promise<RunningApp> {
   const mail = await testMail();
   const port = await freePort();
   const url = `http://127.0.0.1:${port}`;
+  const logger = createLogger(() => undefined);
+  // live updates as the real server runs them
+  const events = await ChangeEvents.start(testDatabaseUrl(), db, logger);
   const app = createApp({
     db,
     jwtSecret: 'e2e-secret',
     staticDir: dist,
-    log: () => undefined,
+    logger,
+    events,
     mailer: mail.mailer,
     appUrl: url,
   });
@@ -40,6 +46,7 @@ export async function startApp(): Promise<RunningApp> {
     url,
     mail,
     close: async () => {
+      await events.close();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await db.destroy();

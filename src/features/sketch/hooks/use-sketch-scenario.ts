@@ -1,12 +1,20 @@
 /**
  * The scenario being sketched: loaded from the device (by `?scenario=`, else the most recently
  * edited, else the demo desk's), edited in memory, and saved back to IndexedDB shortly after
- * each valid change, so a reload or a crash loses at most the last fraction of a second.
+ * each valid change, so a reload or a crash loses at most the last fraction of a second. When a
+ * sync brings a colleague's revision of the open scenario and nothing here is waiting to be
+ * saved, the page follows it.
  */
-import { useQueryClient } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useSearchParams } from 'react-router';
-import { type ScenarioDocument, parseScenario, newScenario } from '../../../engine/core';
+import {
+  canonicalJson,
+  type ScenarioDocument,
+  parseScenario,
+  newScenario,
+} from '../../../engine/core';
+import { localScenarioQuery } from '../../../store/hooks';
 import { appDb } from '../../../store/db';
 import { seedDemoScenariosOnce } from '../../../store/demo-seed';
 import { getScenario, listScenarios, saveScenario } from '../../../store/scenarios';
@@ -60,13 +68,27 @@ export function useSketchScenario() {
     // eslint-disable-next-line react-hooks/exhaustive-deps -- setParams is stable in practice; reloading on it would loop
   }, [requested]);
 
+  // the stored copy, refreshed after each sync: a newer one from the desk replaces the page's
+  // when the page has nothing unsaved
+  const stored = useQuery({ ...localScenarioQuery(doc?.id ?? ''), enabled: doc !== null });
+  useEffect(() => {
+    const there = stored.data?.document;
+    if (!there || !doc || there.id !== doc.id) return;
+    if (pending.current || saveState !== 'saved') return;
+    if (canonicalJson(there) !== canonicalJson(doc)) setDoc(there);
+    // only a new stored copy is news
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [stored.data]);
+
   const flush = useCallback(async () => {
     const d = pending.current;
     if (!d) return;
     pending.current = null;
     setSaveState('saving');
     try {
-      await saveScenario(appDb(), d);
+      const saved = await saveScenario(appDb(), d);
+      // the stored copy is this page's own: no reason to adopt it back
+      qc.setQueryData(localScenarioQuery(saved.id).queryKey, saved);
       nudgeSync();
       setSaveState(pending.current ? 'unsaved' : 'saved');
       void qc.invalidateQueries({ queryKey: ['local', 'scenarios'] });
