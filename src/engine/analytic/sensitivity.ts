@@ -41,3 +41,34 @@ export function smileSensitivities(
     return { parameter: name, dVol };
   });
 }
+
+/**
+ * The step a trader thinks in, per parameter: one vol point of √v₀, √θ or σ; +0.1 on vol of
+ * vol, correlations, intensity and mean reversion; −1 % on the mean jump and +1 % on jump
+ * sizes; +5 % on the up probability. `step` is in the parameter's own units (for v₀ and θ, the
+ * variance change that moves their square root by 0.01).
+ */
+export function naturalStep(name: string, value: number): { step: number; label: string } {
+  const rootStep = (v: number) => (Math.sqrt(Math.max(0, v)) + 0.01) ** 2 - Math.max(0, v);
+  switch (name) {
+    case 'v0':
+      return { step: rootStep(value), label: '+1 vol pt of √v₀' };
+    case 'theta':
+      return { step: rootStep(value), label: '+1 vol pt of √θ' };
+    case 'sigma':
+      return { step: 0.01, label: '+1 vol pt' };
+    case 'jumpMean':
+      return { step: -0.01, label: '−1 %' };
+    case 'jumpStdev':
+    case 'upMean':
+    case 'downMean':
+    case 'varianceJumpMean':
+      return { step: 0.01, label: '+1 %' };
+    case 'upProbability':
+      return { step: 0.05, label: '+0.05' };
+    case 'jumpIntensity':
+      return { step: 0.1, label: '+0.1 a year' };
+    default:
+      return { step: 0.1, label: '+0.1' };
+  }
+}

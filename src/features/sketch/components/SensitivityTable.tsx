@@ -1,15 +1,21 @@
-import type { ParameterSensitivity } from '../../../engine/analytic';
-import { isParameterKey, parameterLabel } from '../../../engine/core';
+import { naturalStep, type ParameterSensitivity } from '../../../engine/analytic';
+import { formatNumber } from '../../../components/format';
+import { isParameterKey, parameterLabel, type Model } from '../../../engine/core';
 
 interface Props {
   sensitivities: ParameterSensitivity[];
   logMoneyness: number[];
+  /** the model the sensitivities are of: the steps follow its values (√v₀, √θ) */
+  model: Model;
 }
 
 const PICK = [-0.2, -0.1, -0.05, 0, 0.05, 0.1, 0.2];
 
-/** ∂σ/∂p in vol points per unit of each parameter, at a few moneyness points of one expiry. */
-export function SensitivityTable({ sensitivities, logMoneyness }: Props) {
+/**
+ * How much the implied vol moves, in vol points, for a step of each parameter a trader thinks
+ * in (to first order: ∂σ/∂p × step), at a few moneyness points of one expiry.
+ */
+export function SensitivityTable({ sensitivities, logMoneyness, model }: Props) {
   const columns = PICK.map((target) => {
     let best = 0;
     logMoneyness.forEach((k, i) => {
@@ -21,33 +27,44 @@ export function SensitivityTable({ sensitivities, logMoneyness }: Props) {
     <div className="overflow-auto rounded border border-rule">
       <table className="tabular w-full text-right text-sm" data-testid="sensitivity-table">
         <caption className="px-2 py-1.5 text-left text-xs text-muted">
-          Smile sensitivity ∂σ/∂p, in vol points per unit of each parameter, at ln(K/F) =
+          Change of implied vol, in vol points, for the step shown (first order, ∂σ/∂p × step), at
+          ln(K/F) =
         </caption>
         <thead className="text-xs text-muted">
           <tr>
             <th scope="col" className="px-2 py-1 text-left font-normal">
               parameter
             </th>
+            <th scope="col" className="px-2 py-1 text-left font-normal">
+              step
+            </th>
             {columns.map((i) => (
               <th key={i} scope="col" className="px-2 py-1 font-normal">
-                {logMoneyness[i].toFixed(2)}
+                {formatNumber(logMoneyness[i], 3)}
               </th>
             ))}
           </tr>
         </thead>
         <tbody>
-          {sensitivities.map((s) => (
-            <tr key={s.parameter} className="border-t border-rule/60">
-              <th scope="row" className="px-2 py-1 text-left font-normal">
-                {isParameterKey(s.parameter) ? parameterLabel(s.parameter) : s.parameter}
-              </th>
-              {columns.map((i) => (
-                <td key={i} className="px-2 py-1">
-                  {s.dVol[i] === null ? '—' : (100 * (s.dVol[i] as number)).toFixed(2)}
-                </td>
-              ))}
-            </tr>
-          ))}
+          {sensitivities.map((s) => {
+            const value = isParameterKey(s.parameter)
+              ? ((model as Record<string, unknown>)[s.parameter] as number)
+              : 0;
+            const { step, label } = naturalStep(s.parameter, value);
+            return (
+              <tr key={s.parameter} className="border-t border-rule/60">
+                <th scope="row" className="px-2 py-1 text-left font-normal">
+                  {isParameterKey(s.parameter) ? parameterLabel(s.parameter) : s.parameter}
+                </th>
+                <td className="px-2 py-1 text-left text-muted">{label}</td>
+                {columns.map((i) => (
+                  <td key={i} className="px-2 py-1">
+                    {s.dVol[i] === null ? '—' : formatNumber(100 * (s.dVol[i] as number) * step, 2)}
+                  </td>
+                ))}
+              </tr>
+            );
+          })}
         </tbody>
       </table>
     </div>

@@ -261,6 +261,7 @@ export function SketchPage() {
                 <SensitivityTable
                   sensitivities={sensitivities.data}
                   logMoneyness={slice.logMoneyness}
+                  model={doc.model}
                 />
               )}
               {smiles.data.density && (

@@ -8,6 +8,8 @@ interface Control {
   max: number;
   step: number;
   format: (v: number) => string;
+  /** a line under the slider when its effect is not where one would look for it */
+  note?: string;
 }
 
 const times = (v: number) => `×${v.toFixed(2)}`;
@@ -36,6 +38,7 @@ const CONTROLS: Control[] = [
     max: 0.2,
     step: 0.005,
     format: (v) => `${v >= 0 ? '+' : ''}${(100 * v).toFixed(1)}%`,
+    note: 'Moves spot and the forwards with it. The smile in ln(K/F) and in delta does not move: every model here scales with spot. Its effect shows in the strike view and on the Book’s gap ladder.',
   },
   { key: 'volOfVolScale', label: 'Vol of vol', min: 0, max: 4, step: 0.05, format: times },
   { key: 'v0Scale', label: 'Initial variance', min: 0, max: 6, step: 0.05, format: times },
@@ -93,7 +96,13 @@ export function StressPanel({ stress, kind, hasEvents, onChange, issues }: Props
               value={value}
               className="w-full accent-[rgb(var(--stressed))]"
               onChange={(e) => onChange({ ...stress, [c.key]: Number(e.target.value) })}
+              aria-describedby={c.note ? `${id}-note` : undefined}
             />
+            {c.note && (
+              <p id={`${id}-note`} className="text-xs text-muted">
+                {c.note}
+              </p>
+            )}
           </div>
         );
       })}

@@ -10,8 +10,8 @@ import { PlotlyChart } from '../../../components/PlotlyChart';
 type Measure = 'atm' | 'rr25' | 'bf25';
 const TITLES: Record<Measure, string> = {
   atm: 'ATM vol',
-  rr25: '25Δ risk reversal',
-  bf25: '25Δ butterfly',
+  rr25: '25Δ risk reversal (vol points)',
+  bf25: '25Δ butterfly (vol points)',
 };
 
 export interface EventMarker {
@@ -107,7 +107,9 @@ export function TermStructureChart({
         tickfont: { color: t.muted },
       };
       layout[`xaxis${suffix}`] = { ...axis, type: 'log', tickvals: x, ticktext: ticks };
-      layout[`yaxis${suffix}`] = { ...axis, ticksuffix: '%' };
+      // ATM vol in percent; risk reversal and butterfly are differences of vols: vol points
+      layout[`yaxis${suffix}`] =
+        m === 'atm' ? { ...axis, ticksuffix: '%' } : { ...axis, ticksuffix: ' pts' };
       (layout.annotations as unknown[]).push(panelTitle(suffix, TITLES[m], 1.14));
     });
     return { data, layout: layout as Partial<Layout> };
