@@ -68,14 +68,20 @@ export function useSketchScenario() {
     // eslint-disable-next-line react-hooks/exhaustive-deps -- setParams is stable in practice; reloading on it would loop
   }, [requested]);
 
-  // the stored copy, refreshed after each sync: a newer one from the desk replaces the page's
-  // when the page has nothing unsaved
+  // the stored copy, refreshed after each sync: a newer server revision (a colleague's, pulled)
+  // replaces the page's copy when the page has nothing unsaved. Only the revision counts as
+  // news: a local save keeps it, so a late read of an older copy is never taken for one.
   const stored = useQuery({ ...localScenarioQuery(doc?.id ?? ''), enabled: doc !== null });
+  const seen = useRef<{ id: string; revision: number } | null>(null);
   useEffect(() => {
-    const there = stored.data?.document;
-    if (!there || !doc || there.id !== doc.id) return;
+    const there = stored.data;
+    if (!there || !doc || there.document.id !== doc.id) return;
+    const last = seen.current?.id === doc.id ? seen.current.revision : null;
+    if (last === null || there.revision > last)
+      seen.current = { id: doc.id, revision: there.revision };
+    if (last === null || there.revision <= last || there.syncState !== 'synced') return;
     if (pending.current || saveState !== 'saved') return;
-    if (canonicalJson(there) !== canonicalJson(doc)) setDoc(there);
+    if (canonicalJson(there.document) !== canonicalJson(doc)) setDoc(there.document);
     // only a new stored copy is news
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [stored.data]);
