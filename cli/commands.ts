@@ -92,6 +92,8 @@ function surfaceJson(surface: SmileSurface) {
     atm: surface.slices.map((s) => s.atm),
     rr25: surface.slices.map((s) => s.rr25),
     bf25: surface.slices.map((s) => s.bf25),
+    rr10: surface.slices.map((s) => s.rr10),
+    bf10: surface.slices.map((s) => s.bf10),
   };
 }
 

@@ -6,6 +6,8 @@ import {
   impliedVol,
   normCdf,
   normInv,
+  modelSpec,
+  smileSlice,
 } from '../../src/engine/analytic';
 
 /** Inputs with S, r, q as Hull and Haug state them: F = S e^{(r−q)T}, DF = e^{−rT}. */
@@ -148,5 +150,22 @@ describe('implied volatility', () => {
     expect(impliedVol({ ...base, price: 9.5 })).toEqual({ vol: null, failure: 'below-intrinsic' });
     expect(impliedVol({ ...base, price: 100 })).toEqual({ vol: null, failure: 'above-maximum' });
     expect(impliedVol({ ...base, price: Number.NaN }).vol).toBeNull();
+  });
+});
+
+describe('10-delta and 25-delta strikes', () => {
+  it("under Black-Scholes they invert Hull's forward delta N(d1): K = F·exp(−σ√T·N⁻¹(Δ) + σ²T/2), and the flat smile has no risk reversal or butterfly", () => {
+    const market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
+    for (const T of [1 / 365, 0.5]) {
+      const sigma = 0.25;
+      const s = smileSlice(modelSpec({ kind: 'black-scholes', sigma }), market, T, [-0.1, 0, 0.1]);
+      const strike = (delta: number) =>
+        s.forward * Math.exp(-sigma * Math.sqrt(T) * normInv(delta) + 0.5 * sigma * sigma * T);
+      expect(s.strike10Call! / strike(0.1) - 1).toBeCloseTo(0, 9);
+      expect(s.strike10Put! / strike(0.9) - 1).toBeCloseTo(0, 9);
+      expect(s.strike25Call! / strike(0.25) - 1).toBeCloseTo(0, 9);
+      expect(Math.abs(s.rr10!)).toBeLessThan(1e-9);
+      expect(Math.abs(s.bf10!)).toBeLessThan(1e-9);
+    }
   });
 });

@@ -24,6 +24,11 @@ export interface SmileSlice {
   /** strikes of the 25-delta call and put, where found */
   strike25Call: number | null;
   strike25Put: number | null;
+  /** the same at 10 delta: the wings a short-dated desk quotes */
+  rr10: number | null;
+  bf10: number | null;
+  strike10Call: number | null;
+  strike10Put: number | null;
 }
 
 export interface SmileSurface {
@@ -59,6 +64,23 @@ export function strikeForDelta(prep: CosExpiry, delta: number, start: number): n
   return sigma === null ? null : k;
 }
 
+/**
+ * Risk reversal and butterfly at one delta (forward call delta Δ for the call, 1 − Δ for the
+ * put, each at the smile's own vol), with their strikes as log-moneyness.
+ */
+function deltaWings(
+  prep: CosExpiry,
+  atm: number,
+  delta: number,
+): { rr: number | null; bf: number | null; kCall: number | null; kPut: number | null } {
+  const kCall = strikeForDelta(prep, delta, atm);
+  const kPut = strikeForDelta(prep, 1 - delta, atm);
+  const vc = kCall === null ? null : volAt(prep, kCall);
+  const vp = kPut === null ? null : volAt(prep, kPut);
+  if (vc === null || vp === null) return { rr: null, bf: null, kCall, kPut };
+  return { rr: vc - vp, bf: 0.5 * (vc + vp) - atm, kCall, kPut };
+}
+
 export function smileSlice(
   spec: ModelSpec,
   market: Market,
@@ -83,20 +105,10 @@ export function smileSlice(
     return normCdf(-logMoneyness[j] / s + 0.5 * s);
   });
   const atm = volAt(prep, 0);
-  let rr25: number | null = null;
-  let bf25: number | null = null;
-  let k25c: number | null = null;
-  let k25p: number | null = null;
-  if (atm !== null) {
-    k25c = strikeForDelta(prep, 0.25, atm);
-    k25p = strikeForDelta(prep, 0.75, atm);
-    const vc = k25c === null ? null : volAt(prep, k25c);
-    const vp = k25p === null ? null : volAt(prep, k25p);
-    if (vc !== null && vp !== null) {
-      rr25 = vc - vp;
-      bf25 = 0.5 * (vc + vp) - atm;
-    }
-  }
+  const none = { rr: null, bf: null, kCall: null, kPut: null };
+  const w25 = atm === null ? none : deltaWings(prep, atm, 0.25);
+  const w10 = atm === null ? none : deltaWings(prep, atm, 0.1);
+  const strike = (k: number | null) => (k === null ? null : F * Math.exp(k));
   return {
     expiry,
     forward: F,
@@ -105,10 +117,14 @@ export function smileSlice(
     impliedVols,
     callDeltas,
     atm,
-    rr25,
-    bf25,
-    strike25Call: k25c === null ? null : F * Math.exp(k25c),
-    strike25Put: k25p === null ? null : F * Math.exp(k25p),
+    rr25: w25.rr,
+    bf25: w25.bf,
+    strike25Call: strike(w25.kCall),
+    strike25Put: strike(w25.kPut),
+    rr10: w10.rr,
+    bf10: w10.bf,
+    strike10Call: strike(w10.kCall),
+    strike10Put: strike(w10.kPut),
   };
 }
 

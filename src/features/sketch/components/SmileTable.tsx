@@ -66,7 +66,9 @@ export function SmileTable({ slice, stressedSlice, greeks, scenarioName }: Props
         <p className="text-sm text-muted">
           Forward {formatNumber(slice.forward, 4)} · ATM {formatVol(slice.atm)}% · RR25{' '}
           {formatSigned(slice.rr25 === null ? null : 100 * slice.rr25)} · BF25{' '}
-          {formatSigned(slice.bf25 === null ? null : 100 * slice.bf25)} vol pts
+          {formatSigned(slice.bf25 === null ? null : 100 * slice.bf25)} · RR10{' '}
+          {formatSigned(slice.rr10 === null ? null : 100 * slice.rr10)} · BF10{' '}
+          {formatSigned(slice.bf10 === null ? null : 100 * slice.bf10)} vol pts
         </p>
         <button
           type="button"

@@ -10,8 +10,8 @@ import { PlotlyChart } from '../../../components/PlotlyChart';
 type Measure = 'atm' | 'rr25' | 'bf25';
 const TITLES: Record<Measure, string> = {
   atm: 'ATM vol',
-  rr25: '25Δ risk reversal (vol points)',
-  bf25: '25Δ butterfly (vol points)',
+  rr25: 'Risk reversal: 25Δ solid, 10Δ dotted (vol pts)',
+  bf25: 'Butterfly: 25Δ solid, 10Δ dotted (vol pts)',
 };
 
 export interface EventMarker {
@@ -83,6 +83,29 @@ export function TermStructureChart({
           line: { color: t.stressed, width: 2, dash: 'dash' },
           marker: { size: 6 },
         } as Data);
+      // the 10-delta wings beside the 25-delta ones, thinner and dotted
+      if (m !== 'atm') {
+        const tenDelta = m === 'rr25' ? 'rr10' : 'bf10';
+        const wing = (surface: SmileSurface) =>
+          surface.slices.map((s) => (s[tenDelta] === null ? null : 100 * (s[tenDelta] as number)));
+        data.push({
+          ...common,
+          mode: 'lines+markers',
+          y: wing(base),
+          name: 'base, 10Δ',
+          line: { color: t.base, width: 1.5, dash: 'dot' },
+          marker: { size: 4 },
+        } as Data);
+        if (stressed)
+          data.push({
+            ...common,
+            mode: 'lines+markers',
+            y: wing(stressed),
+            name: 'stressed, 10Δ',
+            line: { color: t.stressed, width: 1.5, dash: 'dot' },
+            marker: { size: 4 },
+          } as Data);
+      }
       if (m === 'atm' && events.length > 0) {
         const ys = [...baseY, ...(stressedY ?? [])].filter((v): v is number => v !== null);
         const lo = Math.min(...ys);
