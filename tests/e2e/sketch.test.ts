@@ -75,6 +75,22 @@ describe('Sketch', () => {
       await panel.getByRole('button', { name: 'Place' }).click();
     }
     await expect.poll(() => panel.locator('li').count()).toBe(3);
+    // a click on a smile picks its expiry, strike and vol into the entry (the typed entry works too)
+    await page.getByTestId('smile-chart').scrollIntoViewIfNeeded();
+    const point = await page.evaluate(() => {
+      const lines = document.querySelectorAll<SVGPathElement>(
+        '[data-testid="smile-chart"] .scatterlayer .trace path.js-line',
+      );
+      const line = lines[0];
+      const at = line.getPointAtLength(line.getTotalLength() * 0.3);
+      const m = line.getScreenCTM()!;
+      return { x: m.a * at.x + m.c * at.y + m.e, y: m.b * at.x + m.d * at.y + m.f };
+    });
+    await page.mouse.click(point.x, point.y);
+    await expect
+      .poll(() => page.getByLabel('Target vol %').inputValue(), { timeout: 5000 })
+      .toMatch(/^\d+\.\d\d$/);
+    expect(Number(await page.getByLabel('Target ln(K/F)').inputValue())).toBeLessThan(0);
     await panel.getByRole('button', { name: 'Solve jumps' }).click();
     await expect
       .poll(() => page.getByLabel('Scenario name').inputValue(), { timeout: 30000 })

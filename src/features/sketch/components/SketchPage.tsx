@@ -24,7 +24,7 @@ import {
   type Stress,
 } from '../../../engine/core';
 import { ScenarioPicker } from './ScenarioPicker';
-import { TargetVols } from './TargetVols';
+import { TargetVols, type PickedPoint } from './TargetVols';
 import type { TargetVol } from '../../../engine/fit';
 import { SensitivityTable } from './SensitivityTable';
 import { smileRequest, useGreeks, useSensitivities, useSmiles } from '../hooks/use-smiles';
@@ -100,6 +100,12 @@ export function SketchPage() {
     slice ? slice.expiry : null,
     slice ? slice.logMoneyness : null,
   );
+  const [picked, setPicked] = useState<PickedPoint | null>(null);
+  // the target entry starts two ATM standard deviations below the forward of the first expiry:
+  // inside its panel, where quotes are
+  const first = smiles.data?.base.slices[0];
+  const defaultTargetK =
+    first?.atm != null ? -Math.round(2 * first.atm * Math.sqrt(first.expiry) * 1e3) / 1e3 : -0.05;
 
   if (loadError && !doc)
     return (
@@ -157,7 +163,13 @@ export function SketchPage() {
             onChange={(sch) => setModel({ jumpIntensitySchedule: sch })}
           />
         )}
-        <TargetVols doc={doc} targets={targets} onTargets={(t) => update({ ...doc, targets: t })} />
+        <TargetVols
+          doc={doc}
+          targets={targets}
+          onTargets={(t) => update({ ...doc, targets: t })}
+          picked={picked}
+          defaultK={defaultTargetK}
+        />
         <StressPanel
           stress={stress}
           kind={doc.model.kind}
@@ -209,6 +221,7 @@ export function SketchPage() {
                 stressed={smiles.data.stressed}
                 mode={axis}
                 targets={targets}
+                onPick={setPicked}
               />
               <p className="text-xs text-muted">
                 {AXIS_LABEL[axis]} · implied vol in % · computed in{' '}

@@ -54,11 +54,14 @@ export function SmileChart({
   stressed,
   mode,
   targets = NO_TARGETS,
+  onPick,
 }: {
   base: SmileSurface;
   stressed: SmileSurface | null;
   mode: AxisMode;
   targets?: TargetVol[];
+  /** a click on a smile: its panel's expiry, the point's ln(K/F) and vol */
+  onPick?: (p: { expiry: number; logMoneyness: number; impliedVol: number }) => void;
 }) {
   const theme = useTheme();
   const figure = useMemo(() => {
@@ -125,5 +128,25 @@ export function SmileChart({
     });
     return { data, layout };
   }, [base, stressed, mode, targets, theme]);
-  return <PlotlyChart data={figure.data} layout={figure.layout} />;
+  return (
+    <PlotlyChart
+      data={figure.data}
+      layout={figure.layout}
+      onClick={(e) => {
+        const point = e.points[0];
+        if (!onPick || !point) return;
+        const name = (point.data as { name?: string }).name;
+        const surface = name === 'stressed' ? stressed : name === 'base' ? base : null;
+        const xaxis = (point.data as { xaxis?: string }).xaxis ?? 'x';
+        const slice = surface?.slices[xaxis === 'x' ? 0 : Number(xaxis.slice(1)) - 1];
+        const vol = slice?.impliedVols[point.pointIndex];
+        if (!slice || vol === null || vol === undefined) return;
+        onPick({
+          expiry: slice.expiry,
+          logMoneyness: slice.logMoneyness[point.pointIndex],
+          impliedVol: vol,
+        });
+      }}
+    />
+  );
 }

@@ -1,27 +1,48 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { type ScenarioDocument, hasJumps } from '../../../engine/core';
 import type { TargetVol } from '../../../engine/fit';
 import { useTargetSolve } from '../hooks/use-target-solve';
 import { formatTenor } from '../../../components/format';
 
+/** A point picked on a smile panel: it fills the entry, whose vol the user then sets. */
+export interface PickedPoint {
+  expiry: number;
+  logMoneyness: number;
+  impliedVol: number;
+}
+
 interface Props {
   doc: ScenarioDocument;
   targets: TargetVol[];
   onTargets: (targets: TargetVol[]) => void;
+  /** the last point clicked on a smile panel */
+  picked: PickedPoint | null;
+  /** where the entry starts: two ATM standard deviations below the forward of the first expiry */
+  defaultK: number;
 }
 
 /** Target vols placed on the smiles, and the solve that turns them into a new stressed scenario. */
-export function TargetVols({ doc, targets, onTargets }: Props) {
+export function TargetVols({ doc, targets, onTargets, picked, defaultK }: Props) {
   const [expiry, setExpiry] = useState(doc.grid.expiries[0]);
-  const [k, setK] = useState('-0.1');
+  const [k, setK] = useState<string | null>(null);
+  const kText = k ?? String(defaultK);
   const [vol, setVol] = useState('');
+  const volInput = useRef<HTMLInputElement>(null);
+  useEffect(() => {
+    if (!picked) return;
+    setExpiry(picked.expiry);
+    setK(String(Math.round(picked.logMoneyness * 1e4) / 1e4));
+    setVol((100 * picked.impliedVol).toFixed(2));
+    volInput.current?.focus();
+    volInput.current?.select();
+  }, [picked]);
   const [also, setAlso] = useState({ rho: false, v0: false });
   const solver = useTargetSolve();
   const { error, setError, progress } = solver;
   const withJumps = hasJumps(doc.model.kind);
 
   const add = () => {
-    const kk = Number(k);
+    const kk = Number(kText);
     const v = Number(vol) / 100;
     if (!Number.isFinite(kk) || Math.abs(kk) > 2)
       return setError('ln(K/F) must be a number between −2 and 2');
@@ -44,6 +65,9 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
       {!withJumps && (
         <p className="text-xs text-muted">Choose a model with jumps to solve for them.</p>
       )}
+      <p className="text-xs text-muted">
+        Click a smile to pick its expiry and strike, or type them; then set the vol and Place.
+      </p>
       <div className="grid grid-cols-[4.5rem_1fr_1fr_auto] items-end gap-1 text-xs">
         <select
           aria-label="Target expiry"
@@ -59,13 +83,14 @@ export function TargetVols({ doc, targets, onTargets }: Props) {
         </select>
         <input
           aria-label="Target ln(K/F)"
-          value={k}
+          value={kText}
           onChange={(e) => setK(e.target.value)}
           className="tabular w-full min-w-0 rounded border border-rule bg-panel px-1 py-1 text-right"
           placeholder="ln(K/F)"
         />
         <input
           aria-label="Target vol %"
+          ref={volInput}
           value={vol}
           onChange={(e) => setVol(e.target.value)}
           onKeyDown={(e) => e.key === 'Enter' && add()}
