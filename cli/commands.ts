@@ -34,6 +34,8 @@ import {
   legValuesAtMoves,
   sumRow,
   volReactionValuesAtMoves,
+  pnlSinceTrade,
+  vegaByExpiry,
   ladderSchema,
   positionsSchema,
   type Position,
@@ -194,6 +196,9 @@ export function revalue(request: unknown) {
       theta,
     })),
     total,
+    // legs with a trade price: quantity × (price now − tradePrice)
+    pnlSinceTrade: pnlSinceTrade(positions, legs),
+    vegaByExpiry: vegaByExpiry(positions, legs),
     ladder,
     // with a ladder: each move's P&L less the delta part, under the model and the vol-reaction rule
     ...(exposure

@@ -14,6 +14,7 @@ import {
 } from './book';
 import { jumpMoveProbabilities } from './jump-law';
 import { jumpExposure, type JumpExposure } from './jump-exposure';
+import { pnlSinceTrade, vegaByExpiry, type SinceTrade } from './trade-pnl';
 import type { Position } from './positions';
 import { applyStress, type Stress } from '../core/stress';
 import type { Market, Model } from '../core/types';
@@ -40,6 +41,10 @@ export interface ScenarioPnl {
 
 export interface SetRevaluation {
   base: { legs: LegRisk[]; total: BookTotal };
+  /** P&L since trade of the legs with a trade price, under the base */
+  sinceTrade: SinceTrade;
+  /** the base's vega per vol point by expiry bucket */
+  vegaByExpiry: { label: string; vega: number }[];
   scenarios: ScenarioPnl[];
   moves: number[];
   /**
@@ -129,6 +134,8 @@ export function revalueSet(
   });
   return {
     base: { legs, total },
+    sinceTrade: pnlSinceTrade(positions, legs),
+    vegaByExpiry: vegaByExpiry(positions, legs),
     scenarios: results,
     moves,
     baseLadder,

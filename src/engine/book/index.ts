@@ -7,3 +7,4 @@ export * from './positions';
 export * from './schema';
 export * from './jump-exposure';
 export * from './wing-hedge';
+export * from './trade-pnl';

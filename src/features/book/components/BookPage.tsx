@@ -150,6 +150,18 @@ export function BookPage() {
                     ms
                   </p>
                 )}
+                {data && (
+                  <p className="tabular text-sm" data-testid="book-since-trade">
+                    {data.sinceTrade.priced > 0
+                      ? `P&L since trade ${formatNumber(data.sinceTrade.total, 2)} over the ${data.sinceTrade.priced} leg${data.sinceTrade.priced > 1 ? 's' : ''} with a trade price`
+                      : 'No leg has a trade price: add a tradePrice column for the P&L since trade'}{' '}
+                    · vega by expiry{' '}
+                    {data.vegaByExpiry
+                      .filter((b) => b.vega !== 0)
+                      .map((b) => `${b.label} ${formatNumber(b.vega, 2)}`)
+                      .join(', ') || 'none'}
+                  </p>
+                )}
                 {result.isError && (
                   <p role="alert" className="text-stressed">
                     Revaluation failed: {(result.error as Error).message}
@@ -158,6 +170,7 @@ export function BookPage() {
                 <PositionsTable
                   positions={positions}
                   risks={data?.base.legs ?? null}
+                  sinceTrade={data?.sinceTrade.legs ?? null}
                   selected={selectedLeg}
                   onSelect={setSelectedLeg}
                   onQuantity={(id, q) =>

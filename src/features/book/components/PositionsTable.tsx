@@ -4,6 +4,8 @@ import { formatNumber, formatVol } from '../../../components/format';
 interface Props {
   positions: Position[];
   risks: LegRisk[] | null;
+  /** per leg: P&L since trade (null without a trade price) */
+  sinceTrade: (number | null)[] | null;
   selected: string | null;
   onSelect: (id: string) => void;
   onQuantity: (id: string, quantity: number) => void;
@@ -16,6 +18,7 @@ const MAX_SHOWN = 300;
 export function PositionsTable({
   positions,
   risks,
+  sinceTrade,
   selected,
   onSelect,
   onQuantity,
@@ -38,6 +41,7 @@ export function PositionsTable({
               'gamma',
               'vega /pt',
               'theta /day',
+              'P&L since trade',
               '',
             ].map((h) => (
               <th key={h} scope="col" className="px-2 py-1.5 font-normal">
@@ -88,6 +92,18 @@ export function PositionsTable({
                 <td className="px-2 py-1">{r ? r.gamma.toExponential(2) : '…'}</td>
                 <td className="px-2 py-1">{r ? formatNumber(r.vega, 2) : '…'}</td>
                 <td className="px-2 py-1">{r ? formatNumber(r.theta, 2) : '…'}</td>
+                <td
+                  className="px-2 py-1"
+                  title={
+                    p.tradePrice === undefined ? 'no trade price' : `traded at ${p.tradePrice}`
+                  }
+                >
+                  {sinceTrade
+                    ? sinceTrade[i] === null
+                      ? '—'
+                      : formatNumber(sinceTrade[i], 2)
+                    : '…'}
+                </td>
                 <td className="px-2 py-1">
                   <button
                     type="button"
