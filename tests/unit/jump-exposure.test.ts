@@ -6,20 +6,18 @@ import {
   type Position,
 } from '../../src/engine/book';
 import { priceOptions } from '../../src/engine/analytic';
-import { normCdf, normInv, type Market, type Model } from '../../src/engine/core';
+import { DEFAULT_BATES, normCdf, normInv, type Market, type Model } from '../../src/engine/core';
 import { replay, suggestWingHedgeByReplay } from '../../src/engine/replay';
 
 const market: Market = { spot: 100, rate: 0.02, dividendYield: 0.01 };
-const bates: Model = {
-  kind: 'bates',
-  v0: 0.04,
-  kappa: 1.5,
-  theta: 0.04,
-  volOfVol: 0.5,
-  rho: -0.7,
-  jumpIntensity: 0.8,
-  jumpMean: -0.1,
-  jumpStdev: 0.12,
+const bates: Model = { ...DEFAULT_BATES, jumpIntensity: 0.8, jumpStdev: 0.12 };
+/** rare, large, negative jumps: about one a year, −12 % ± 8 % */
+const merton: Model = {
+  kind: 'merton',
+  sigma: 0.15,
+  jumpIntensity: 1,
+  jumpMean: -0.12,
+  jumpStdev: 0.08,
 };
 const kou: Model = {
   kind: 'heston-kou',
@@ -126,13 +124,6 @@ describe('jump exposure of a book', () => {
   });
 
   it("with rare jumps (1 a year) a short put's 1-day expected shortfall comes mostly from jump days (common practice: jumps live in the tail)", () => {
-    const merton: Model = {
-      kind: 'merton',
-      sigma: 0.15,
-      jumpIntensity: 1,
-      jumpMean: -0.12,
-      jumpStdev: 0.08,
-    };
     const r = revalueSet(scenario(merton), [], [book[0]], ladder);
     expect(r.jumpExposure.oneDay.jumpShare).toBeGreaterThan(0.5);
     expect(r.jumpExposure.expectedJumpPnlPerYear).toBeLessThan(0);
@@ -141,13 +132,6 @@ describe('jump exposure of a book', () => {
 
 describe('wing-hedge suggestion', () => {
   it('in a Merton world, the suggested overlay halves the ES99 of a model-delta-hedged short OTM put on the same paths, within the premium budget, and the jump steps carry less of the tail (common practice: only options hedge a gap)', () => {
-    const merton: Model = {
-      kind: 'merton',
-      sigma: 0.15,
-      jumpIntensity: 1,
-      jumpMean: -0.12,
-      jumpStdev: 0.08,
-    };
     const expiry = 30 / 365;
     const put: Position = { id: 'p', type: 'put', strike: 92, expiry, quantity: -10 };
     const strikes = [80, 85, 90];
@@ -193,13 +177,6 @@ describe('wing-hedge suggestion', () => {
 
 describe('wing hedge by a pilot replay', () => {
   it('without costs the hedged P&L is linear in the overlay, so the pilot ES99 after the hedge is the replay of that overlay on the same paths, to 1e-9 × spot; it halves the ES99 within budget (Rockafellar & Uryasev 2000, CVaR by linear programming)', () => {
-    const merton: Model = {
-      kind: 'merton',
-      sigma: 0.15,
-      jumpIntensity: 1,
-      jumpMean: -0.12,
-      jumpStdev: 0.08,
-    };
     const expiry = 30 / 365;
     const request = {
       market,

@@ -10,21 +10,12 @@ import {
   type ReplayRequest,
 } from '../../src/engine/replay';
 import { priceOptions } from '../../src/engine/analytic';
-import { normPdf, type Model } from '../../src/engine/core';
+import { DEFAULT_BATES, normPdf, type Model } from '../../src/engine/core';
 
 const market = { spot: 100, rate: 0.02, dividendYield: 0 };
 const bs: Model = { kind: 'black-scholes', sigma: 0.2 };
-const bates: Model = {
-  kind: 'bates',
-  v0: 0.04,
-  kappa: 1.5,
-  theta: 0.04,
-  volOfVol: 0.5,
-  rho: -0.7,
-  jumpIntensity: 0.5,
-  jumpMean: -0.1,
-  jumpStdev: 0.15,
-};
+/** the project's default Bates model (core's DEFAULT_BATES) */
+const bates: Model = DEFAULT_BATES;
 
 describe('option overlays in a replay', () => {
   it('a short put with the same put long as overlay has a P&L of exactly 0 on every path, and its delta hedge never trades (exactness: the book is flat)', () => {

@@ -6,20 +6,11 @@ import {
   vegaByExpiry,
   type Position,
 } from '../../src/engine/book';
-import type { Model } from '../../src/engine/core';
+import { DEFAULT_BATES, type Model } from '../../src/engine/core';
 
 const market = { spot: 100, rate: 0.02, dividendYield: 0.01 };
-const bates: Model = {
-  kind: 'bates',
-  v0: 0.04,
-  kappa: 1.5,
-  theta: 0.04,
-  volOfVol: 0.5,
-  rho: -0.7,
-  jumpIntensity: 0.5,
-  jumpMean: -0.1,
-  jumpStdev: 0.15,
-};
+/** the project's default Bates model (core's DEFAULT_BATES) */
+const bates: Model = DEFAULT_BATES;
 
 describe('P&L since trade and vega by expiry', () => {
   it('P&L since trade is quantity × (price now − trade price) on the legs that carry one (common practice); a leg traded at today’s model price shows 0', () => {
