@@ -38,6 +38,8 @@ import {
   vegaByExpiry,
   ladderSchema,
   positionsSchema,
+  inUnderlyingUnits,
+  totalsByCurrency,
   type Position,
 } from '../src/engine/book';
 import { replay as replayHedge, replayRequestSchema } from '../src/engine/replay';
@@ -167,8 +169,10 @@ const revalueRequest = z.object({
 export function revalue(request: unknown) {
   const req = parse(revalueRequest, request);
   const { market, model } = stressedInputs(req);
-  const positions = req.positions as Position[];
+  const booked = req.positions as Position[];
   const started = performance.now();
+  // figures in units of the underlying: quantity × each leg's contract multiplier
+  const positions = inUnderlyingUnits(booked);
   const legs = legRisks(market, model, positions);
   const total = bookTotal(legs);
   const moves = req.ladder ? ladderMoves(req.ladder) : [];
@@ -185,6 +189,7 @@ export function revalue(request: unknown) {
         ),
       })
     : null;
+  const sinceTrade = pnlSinceTrade(positions, legs);
   const elapsedMs = performance.now() - started;
   return {
     legs: legs.map(({ id, value, delta, gamma, vega, theta }) => ({
@@ -197,7 +202,9 @@ export function revalue(request: unknown) {
     })),
     total,
     // legs with a trade price: quantity × (price now − tradePrice)
-    pnlSinceTrade: pnlSinceTrade(positions, legs),
+    pnlSinceTrade: sinceTrade,
+    // per currency of the legs (the market's when a leg names none), never added across
+    totals: totalsByCurrency(market, booked, legs, sinceTrade.legs),
     vegaByExpiry: vegaByExpiry(positions, legs),
     ladder,
     // with a ladder: each move's P&L less the delta part, under the model and the vol-reaction rule

@@ -53,3 +53,13 @@ export const DEMO_SETS = [
     ],
   },
 ] as const;
+
+/** The desk's shared book, kept in the first demo set and revalued under its scenarios. */
+export const DEMO_DESK_BOOK = {
+  id: 'b7c1a8e0-3f52-4f4e-8d11-5a0f3c9e2b10',
+  name: 'LKX 40 short end (desk)',
+  setName: DEMO_SETS[0].name,
+  /** index options: 10 units of the index per contract, booked in euros */
+  multiplier: 10,
+  currency: 'EUR',
+} as const;

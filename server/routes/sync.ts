@@ -24,7 +24,7 @@ export function syncRouter(db: Knex, auth: RequestHandler, events?: ChangeEvents
 
   r.get('/sync/pull', auth, async (req, res) => {
     const q = parseOr400(pullQuery, req.query, 'query');
-    res.json(await pull(db, req.user!, q.since));
+    res.json(await pull(db, req.user!, q.since, undefined, q.books === '1'));
   });
 
   r.get('/scenarios/:id/revisions', auth, async (req, res) => {

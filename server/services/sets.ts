@@ -23,7 +23,7 @@ export async function listSets(
       'set_id',
       rows.map((t) => t.id),
     )
-    .where('deleted', false)
+    .where({ deleted: false, kind: 'scenario' })
     .groupBy('set_id')
     .select('set_id', db.raw('count(*)::int as n'));
   const n = new Map(counts.map((c) => [c.set_id, c.n as number]));
@@ -72,7 +72,7 @@ export function renameSet(db: Knex, set: SetRow, name: string) {
   });
 }
 
-/** Deleting a set leaves a tombstone for the set and for each of its scenarios. */
+/** Deleting a set leaves a tombstone for the set and for each of its scenarios and books. */
 export function deleteSet(db: Knex, set: SetRow, userId: string) {
   return db.transaction(async (trx) => {
     const live = await trx('scenarios').where({ set_id: set.id, deleted: false }).forUpdate();

@@ -36,6 +36,7 @@ export function decodeCursor(since: string | undefined): Cursor {
 
 interface PulledRow {
   id: string;
+  item_kind: 'scenario' | 'book';
   set_id: string;
   space: string;
   revision: number;
@@ -61,6 +62,7 @@ export async function pull(
   user: SessionUser,
   since: string | undefined,
   limit = 1000,
+  withBooks = false,
 ): Promise<PullAnswer> {
   const cursor = decodeCursor(since);
   const spaces = spacesOf(user);
@@ -75,17 +77,25 @@ export async function pull(
       db,
       'pull-changes',
       `with c as (select unnest($1::text[]) as space, unnest($2::bigint[]) as after)
-       (select 'scenario' as kind, s.id, s.set_id, s.space, s.revision, s.document, s.deleted,
-               s.change_version, s.updated_at, u.name as updated_by, null as name, null::uuid as desk_id
+       (select 'scenario' as kind, s.kind as item_kind, s.id, s.set_id, s.space, s.revision,
+               s.document, s.deleted, s.change_version, s.updated_at, u.name as updated_by,
+               null as name, null::uuid as desk_id
         from c join scenarios s on s.space = c.space and s.change_version > c.after
         left join users u on u.id = s.updated_by
+        where $4::boolean or s.kind = 'scenario'
         order by s.space collate "C", s.change_version limit $3)
        union all
-       (select 'set', t.id, null, t.space, null, null, t.deleted, t.change_version, null, null, t.name, t.desk_id
+       (select 'set', null, t.id, null, t.space, null, null, t.deleted, t.change_version, null, null,
+               t.name, t.desk_id
         from c join scenario_sets t on t.space = c.space and t.change_version > c.after)`,
-      [names, after, limit + 1],
+      [names, after, limit + 1, withBooks],
     ),
-    gone.length ? db('scenarios').whereIn('space', gone).pluck('id') : Promise.resolve([]),
+    gone.length
+      ? db('scenarios')
+          .whereIn('space', gone)
+          .modify((q) => (withBooks ? q : q.where('kind', 'scenario')))
+          .pluck('id')
+      : Promise.resolve([]),
     gone.length ? db('scenario_sets').whereIn('space', gone).pluck('id') : Promise.resolve([]),
   ]);
   const all = changed;
@@ -109,6 +119,7 @@ export async function pull(
     cursor: encodeCursor(next),
     changes: sent.map((r) => ({
       scenarioId: r.id,
+      kind: r.item_kind,
       setId: r.set_id,
       revision: r.revision,
       document: r.deleted ? null : r.document,

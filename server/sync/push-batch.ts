@@ -9,11 +9,13 @@
  * stored result.
  */
 import type { Knex } from 'knex';
-import { parseScenario } from '../../src/engine/core';
-import type { MutationResult, PushMutation } from '../../src/contracts';
+import { parseScenario, type Validated } from '../../src/engine/core';
+import { parseBook } from '../../src/engine/book/book-document';
+import type { ItemKind, MutationResult, PushMutation } from '../../src/contracts';
 import { canManage, canWrite, setStanding, type SetRow, type Standing } from '../access';
 
 interface ScenarioState {
+  kind: ItemKind;
   revision: number;
   document: unknown;
   setId: string;
@@ -23,6 +25,7 @@ interface ScenarioState {
 
 interface Write {
   id: string;
+  kind: ItemKind;
   setId: string;
   space: string;
   revision: number;
@@ -30,6 +33,11 @@ interface Write {
   deleted: boolean;
   exists: boolean;
 }
+
+const PARSERS: Record<ItemKind, (doc: unknown) => Validated<unknown>> = {
+  scenario: parseScenario,
+  book: parseBook,
+};
 
 const isUniqueViolation = (e: unknown) => (e as { code?: string }).code === '23505';
 
@@ -67,8 +75,9 @@ async function applyAll(
     .whereIn('id', scenarioIds)
     .orderBy('id')
     .forUpdate()
-    .select('id', 'revision', 'document', 'set_id', 'deleted'))
+    .select('id', 'kind', 'revision', 'document', 'set_id', 'deleted'))
     state.set(row.id, {
+      kind: row.kind,
       revision: row.revision,
       document: row.document,
       setId: row.set_id,
@@ -99,6 +108,7 @@ async function applyAll(
       );
       continue;
     }
+    const kind: ItemKind = m.kind ?? 'scenario';
     const existing = state.get(m.scenarioId);
     const live = existing?.exists ? existing : undefined;
     const current = live && {
@@ -123,19 +133,27 @@ async function applyAll(
       });
       continue;
     }
+    if (live && live.kind !== kind) {
+      finish(m, {
+        mutationId: m.mutationId,
+        status: 'invalid',
+        error: `kind: this id is a ${live.kind} on the service, not a ${kind}`,
+      });
+      continue;
+    }
     const allowed = m.deleted ? canManage(access.standing) : canWrite(access.standing);
     if (!allowed) {
       finish(m, {
         mutationId: m.mutationId,
         status: 'denied',
-        error: `a ${access.standing} may not ${m.deleted ? 'delete' : 'change'} scenarios in this set`,
+        error: `a ${access.standing} may not ${m.deleted ? 'delete' : 'change'} ${kind}s in this set`,
         ...(current ? { current } : {}),
       });
       continue;
     }
     let document: unknown = null;
     if (!m.deleted) {
-      const parsed = parseScenario(m.document);
+      const parsed = PARSERS[kind](m.document);
       if (!parsed.ok) {
         finish(m, {
           mutationId: m.mutationId,
@@ -167,6 +185,7 @@ async function applyAll(
     const text = m.deleted ? null : JSON.stringify(document);
     writes.push({
       id: m.scenarioId,
+      kind,
       setId,
       space: access.set.space,
       revision,
@@ -175,6 +194,7 @@ async function applyAll(
       exists: Boolean(live),
     });
     state.set(m.scenarioId, {
+      kind,
       revision,
       document,
       setId,
@@ -209,6 +229,7 @@ async function applyAll(
       .insert(
         [...last.values()].map(({ w, version }) => ({
           id: w.id,
+          kind: w.kind,
           set_id: w.setId,
           space: w.space,
           revision: w.revision,

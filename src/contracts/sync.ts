@@ -21,10 +21,17 @@
  */
 import { z } from 'zod';
 
+/** What a set holds: scenarios, and books of positions revalued under them. */
+export const itemKinds = ['scenario', 'book'] as const;
+export type ItemKind = (typeof itemKinds)[number];
+
 export const mutationSchema = z
   .object({
     mutationId: z.string().uuid('must be a UUID'),
+    /** the scenario's id, or the book's when `kind` is "book" */
     scenarioId: z.string().uuid('must be a UUID'),
+    /** "scenario" when not given; an item never changes kind */
+    kind: z.enum(itemKinds, { error: 'must be "scenario" or "book"' }).optional(),
     setId: z.string().uuid('must be a UUID'),
     baseRevision: z.number().int().min(0, 'must be 0 or more'),
     document: z.unknown().optional(),
@@ -37,7 +44,14 @@ export const mutationSchema = z
 export type PushMutation = z.infer<typeof mutationSchema>;
 
 export const pushBody = z.object({ mutations: z.array(mutationSchema).min(1).max(200) });
-export const pullQuery = z.object({ since: z.string().max(4000).optional() });
+/**
+ * `books=1`: the client keeps books too. Clients from before books ask without it and are sent
+ * scenarios only, so a book never lands among their scenarios.
+ */
+export const pullQuery = z.object({
+  since: z.string().max(4000).optional(),
+  books: z.enum(['0', '1'], { error: 'must be 0 or 1' }).optional(),
+});
 
 export interface ServerCopy {
   revision: number;
@@ -57,7 +71,10 @@ export interface MutationResult {
 }
 
 export interface PulledChange {
+  /** the scenario's or the book's id */
   scenarioId: string;
+  /** a scenario when not given (services from before books) */
+  kind?: ItemKind;
   setId: string;
   revision: number;
   /** null: deleted (a tombstone) */

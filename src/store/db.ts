@@ -4,16 +4,17 @@
  * source of truth while offline: every edit lands here first.
  */
 import Dexie, { type EntityTable } from 'dexie';
-import type { Position } from '../engine/book';
+import type { BookDocument, Position } from '../engine/book';
 import type { ScenarioDocument } from '../engine/core';
 import type { PulledSet, ServerCopy } from '../contracts';
 
 export type SyncState = 'local' | 'synced' | 'pending' | 'conflict';
 
-export interface StoredScenario {
+/** What the sync engine keeps of every item it syncs: scenarios and the desk's books. */
+export interface SyncedItem<D = unknown> {
   id: string;
   name: string;
-  document: ScenarioDocument;
+  document: D;
   setId: string | null;
   /** server revision this copy is based on (0: never pushed) */
   revision: number;
@@ -21,11 +22,16 @@ export interface StoredScenario {
   updatedAt: number;
   /** when syncState is 'conflict': the server's copy the local edit collided with */
   conflict?: ServerCopy & { at: number };
-  /** the service refused the last push of this scenario as invalid */
+  /** the service refused the last push of this item as invalid */
   syncError?: string;
   /** who wrote the server revision this copy is based on */
   updatedBy?: string | null;
 }
+
+export type StoredScenario = SyncedItem<ScenarioDocument>;
+
+/** A book kept in one of the desk's sets on the service, as this device last saw or edited it. */
+export type StoredDeskBook = SyncedItem<BookDocument> & { setId: string };
 
 export interface OutboxEntry {
   seq?: number;
@@ -36,6 +42,8 @@ export interface OutboxEntry {
   createdAt: number;
   /** the scenario's set when it was deleted (the row itself is gone) */
   setId?: string | null;
+  /** a desk book's edit; a scenario's when not given (entries from before books) */
+  kind?: 'book';
 }
 
 /** A scenario set on the sync service that this device has pulled (a live one). */
@@ -73,6 +81,7 @@ export class SaltationDb extends Dexie {
   /** the device-only books (the table keeps the name it was created with) */
   sets!: EntityTable<LocalBook, 'id'>;
   remoteSets!: EntityTable<RemoteSet, 'id'>;
+  deskBooks!: EntityTable<StoredDeskBook, 'id'>;
   meta!: EntityTable<MetaEntry, 'key'>;
 
   constructor(name = 'saltation') {
@@ -84,6 +93,7 @@ export class SaltationDb extends Dexie {
     });
     this.version(2).stores({ sets: 'id, name, updatedAt' });
     this.version(3).stores({ remoteSets: 'id, deskId', meta: 'key' });
+    this.version(4).stores({ deskBooks: 'id, setId, syncState' });
   }
 }
 

@@ -25,7 +25,13 @@ export function demoScenarios(valuationDate: string): ScenarioDocument[] {
       notes:
         'Larkspur 40 index (invented). Bates base calibrated by the desk: crashes of about 7 % a few times a decade, almost never upward.',
       valuationDate,
-      market: { spot: 4250, rate: 0.031, dividendYield: 0.017 },
+      market: {
+        underlying: 'LKX 40',
+        currency: 'EUR',
+        spot: 4250,
+        rate: 0.031,
+        dividendYield: 0.017,
+      },
       model: {
         kind: 'bates',
         v0: 0.0225,
@@ -47,7 +53,13 @@ export function demoScenarios(valuationDate: string): ScenarioDocument[] {
       name: 'LKX 40 index — crash week',
       notes: 'More frequent and deeper crashes on the base.',
       valuationDate,
-      market: { spot: 4250, rate: 0.031, dividendYield: 0.017 },
+      market: {
+        underlying: 'LKX 40',
+        currency: 'EUR',
+        spot: 4250,
+        rate: 0.031,
+        dividendYield: 0.017,
+      },
       model: {
         kind: 'bates',
         v0: 0.0225,
@@ -69,7 +81,13 @@ export function demoScenarios(valuationDate: string): ScenarioDocument[] {
       name: 'Corvane Minerals — two-sided jumps',
       notes: 'Single stock (invented) with double-exponential jumps.',
       valuationDate,
-      market: { spot: 38.5, rate: 0.031, dividendYield: 0.0 },
+      market: {
+        underlying: 'Corvane Minerals',
+        currency: 'EUR',
+        spot: 38.5,
+        rate: 0.031,
+        dividendYield: 0.0,
+      },
       model: {
         kind: 'heston-kou',
         v0: 0.09,

@@ -35,12 +35,15 @@ export const unsyncedQuery = queryOptions({
   queryKey: ['local', 'unsynced'],
   queryFn: async () => {
     const db = appDb();
-    const [pending, conflicts, scenarios] = await Promise.all([
+    // scenarios and the desk's books alike
+    const [pending, conflicts, bookPending, bookConflicts, outbox] = await Promise.all([
       db.scenarios.where('syncState').equals('pending').count(),
       db.scenarios.where('syncState').equals('conflict').count(),
+      db.deskBooks.where('syncState').equals('pending').count(),
+      db.deskBooks.where('syncState').equals('conflict').count(),
       db.outbox.count(),
     ]);
-    return { pending, conflicts, outbox: scenarios };
+    return { pending: pending + bookPending, conflicts: conflicts + bookConflicts, outbox };
   },
   staleTime: Infinity,
 });

@@ -4,12 +4,13 @@
  * transactions; each answer is applied in one transaction, so a crash between the two leaves
  * the outbox entry in place and the push is retried under the same mutation id.
  *
- * Several edits of one scenario collapse into one mutation: the scenario's current document
- * on top of the revision this copy is based on, named by its newest outbox entry's id.
+ * Several edits of one item (a scenario or a desk's book) collapse into one mutation: its
+ * current document on top of the revision this copy is based on, named by its newest outbox
+ * entry's id.
  */
-import type { ScenarioDocument } from '../engine/core';
-import type { OutboxEntry, SaltationDb, StoredScenario } from '../store/db';
+import type { OutboxEntry, SaltationDb } from '../store/db';
 import type { MutationResult, PullAnswer, PushMutation, SyncTransport } from './protocol';
+import { fromServer, itemTable, keepOnDevice, kindOf, syncTables } from './synced-items';
 
 export interface SyncReport {
   pushed: number;
@@ -28,7 +29,8 @@ const COUNTED_AS = {
   denied: 'denied',
   invalid: 'invalid',
 } as const satisfies Record<MutationResult['status'], keyof SyncReport>;
-const cursorKey = (userId: string) => `cursor:${userId}`;
+/** v2: the cursor of pulls that carry books (a device from before books pulls once in full) */
+export const cursorKey = (userId: string) => `cursor:v2:${userId}`;
 
 export async function syncOnce(
   db: SaltationDb,
@@ -66,18 +68,21 @@ export async function syncOnce(
 
 interface Pending {
   mutation: PushMutation;
-  /** the outbox entries this mutation carries (all of the scenario's up to the newest) */
+  /** the outbox entries this mutation carries (all of the item's up to the newest) */
   lastSeq: number;
 }
 
-/** One mutation per scenario with pushable edits: in a set, not in conflict, not refused. */
+/** One mutation per item with pushable edits: in a set, not in conflict, not refused. */
 export async function pendingMutations(db: SaltationDb): Promise<Pending[]> {
   const entries = await db.outbox.orderBy('seq').toArray();
   const newest = new Map<string, OutboxEntry>();
   for (const e of entries) newest.set(e.scenarioId, e);
   const out: Pending[] = [];
   for (const [scenarioId, entry] of newest) {
-    const s = await db.scenarios.get(scenarioId);
+    const kind = kindOf(entry);
+    // scenario mutations stay as they were before books (no kind field)
+    const tagged = kind === 'book' ? { kind } : {};
+    const s = await itemTable(db, kind).get(scenarioId);
     if (s) {
       if (s.setId === null || s.syncState === 'conflict' || s.syncError) continue;
       out.push({
@@ -85,6 +90,7 @@ export async function pendingMutations(db: SaltationDb): Promise<Pending[]> {
         mutation: {
           mutationId: entry.mutationId,
           scenarioId,
+          ...tagged,
           setId: s.setId,
           baseRevision: s.revision,
           document: s.document,
@@ -96,13 +102,14 @@ export async function pendingMutations(db: SaltationDb): Promise<Pending[]> {
         mutation: {
           mutationId: entry.mutationId,
           scenarioId,
+          ...tagged,
           setId: entry.setId,
           baseRevision: entry.baseRevision,
           deleted: true,
         },
       });
     } else {
-      // a device-only scenario deleted before it was ever shared: nothing to tell anyone
+      // a device-only item deleted before it was ever shared: nothing to tell anyone
       await db.outbox.where('scenarioId').equals(scenarioId).delete();
     }
   }
@@ -111,7 +118,9 @@ export async function pendingMutations(db: SaltationDb): Promise<Pending[]> {
 
 async function applyResult(db: SaltationDb, p: Pending, result: MutationResult) {
   const id = p.mutation.scenarioId;
-  await db.transaction('rw', db.scenarios, db.outbox, async () => {
+  const kind = p.mutation.kind ?? 'scenario';
+  const table = itemTable(db, kind);
+  await db.transaction('rw', syncTables(db), async () => {
     const carried = await db.outbox
       .where('scenarioId')
       .equals(id)
@@ -119,10 +128,10 @@ async function applyResult(db: SaltationDb, p: Pending, result: MutationResult) 
       .primaryKeys();
     await db.outbox.bulkDelete(carried);
     const left = await db.outbox.where('scenarioId').equals(id).count();
-    const s = await db.scenarios.get(id);
+    const s = await table.get(id);
     if (result.status === 'applied') {
       if (s) {
-        await db.scenarios.put({
+        await table.put({
           ...s,
           revision: result.revision ?? s.revision,
           syncState: left > 0 ? 'pending' : 'synced',
@@ -134,10 +143,10 @@ async function applyResult(db: SaltationDb, p: Pending, result: MutationResult) 
       const current = result.current;
       if (!s) {
         // deleted here, changed there: the server's edit is kept (nothing is lost)
-        if (current && !current.deleted) await db.scenarios.put(fromServer(current, id));
+        if (current && !current.deleted) await table.put(fromServer(current, id));
         return;
       }
-      await db.scenarios.put({
+      await table.put({
         ...s,
         syncState: 'conflict',
         conflict: {
@@ -151,52 +160,21 @@ async function applyResult(db: SaltationDb, p: Pending, result: MutationResult) 
       return;
     }
     if (result.status === 'denied') {
-      // not allowed to change it: keep the local edit as a device-only copy, restore theirs
-      if (s) await db.scenarios.put(deviceCopy(s, 'my edit'));
+      // not allowed to change it: keep the local edit on this device only, restore theirs
+      if (s) await keepOnDevice(db, kind, s, 'my edit');
       await db.outbox.where('scenarioId').equals(id).delete();
       const current = result.current;
-      if (current && !current.deleted) await db.scenarios.put(fromServer(current, id));
-      else await db.scenarios.delete(id);
+      if (current && !current.deleted) await table.put(fromServer(current, id));
+      else await table.delete(id);
       return;
     }
     // invalid: leave it for the user, with the service's reason
-    if (s) await db.scenarios.put({ ...s, syncError: result.error ?? 'refused as invalid' });
+    if (s) await table.put({ ...s, syncError: result.error ?? 'refused as invalid' });
   });
 }
 
-function fromServer(
-  c: { revision: number; document: unknown; setId: string },
-  id: string,
-): StoredScenario {
-  const document = c.document as ScenarioDocument;
-  return {
-    id,
-    name: document.name,
-    document,
-    setId: c.setId,
-    revision: c.revision,
-    syncState: 'synced',
-    updatedAt: Date.now(),
-  };
-}
-
-/** A device-only copy of a scenario under a new id (nothing the user typed is thrown away). */
-function deviceCopy(s: StoredScenario, why: string): StoredScenario {
-  const id = crypto.randomUUID();
-  const name = `${s.name} (${why})`;
-  return {
-    id,
-    name,
-    document: { ...s.document, id, name },
-    setId: null,
-    revision: 0,
-    syncState: 'local',
-    updatedAt: Date.now(),
-  };
-}
-
 async function applyPull(db: SaltationDb, userId: string, a: PullAnswer, report: SyncReport) {
-  await db.transaction('rw', [db.scenarios, db.outbox, db.remoteSets, db.meta], async () => {
+  await db.transaction('rw', syncTables(db), async () => {
     for (const set of a.sets) {
       if (set.deleted) await db.remoteSets.delete(set.id);
       else
@@ -210,12 +188,13 @@ async function applyPull(db: SaltationDb, userId: string, a: PullAnswer, report:
     }
     await db.remoteSets.bulkDelete(a.removedSets);
     for (const c of a.changes) {
-      const local = await db.scenarios.get(c.scenarioId);
+      const table = itemTable(db, c.kind ?? 'scenario');
+      const local = await table.get(c.scenarioId);
       const unpushed = await db.outbox.where('scenarioId').equals(c.scenarioId).count();
       if (local?.conflict) {
         // a conflict waiting for the user: resolve it against the newest server copy
         if (c.revision > local.conflict.revision)
-          await db.scenarios.put({
+          await table.put({
             ...local,
             conflict: {
               revision: c.revision,
@@ -231,9 +210,9 @@ async function applyPull(db: SaltationDb, userId: string, a: PullAnswer, report:
       if (unpushed > 0) continue;
       if (local && local.revision >= c.revision) continue;
       report.pulled++;
-      if (c.document === null) await db.scenarios.delete(c.scenarioId);
+      if (c.document === null) await table.delete(c.scenarioId);
       else
-        await db.scenarios.put({
+        await table.put({
           ...fromServer(
             { revision: c.revision, document: c.document, setId: c.setId },
             c.scenarioId,
@@ -244,14 +223,17 @@ async function applyPull(db: SaltationDb, userId: string, a: PullAnswer, report:
         });
     }
     for (const id of a.removed) {
-      const local = await db.scenarios.get(id);
-      if (!local) continue;
-      report.removed++;
-      const unpushed = await db.outbox.where('scenarioId').equals(id).count();
-      if (unpushed > 0 || local.syncState === 'conflict')
-        await db.scenarios.put(deviceCopy(local, 'kept after losing access'));
-      await db.outbox.where('scenarioId').equals(id).delete();
-      await db.scenarios.delete(id);
+      for (const kind of ['scenario', 'book'] as const) {
+        const table = itemTable(db, kind);
+        const local = await table.get(id);
+        if (!local) continue;
+        report.removed++;
+        const unpushed = await db.outbox.where('scenarioId').equals(id).count();
+        if (unpushed > 0 || local.syncState === 'conflict')
+          await keepOnDevice(db, kind, local, 'kept after losing access');
+        await db.outbox.where('scenarioId').equals(id).delete();
+        await table.delete(id);
+      }
     }
     await db.meta.put({ key: cursorKey(userId), value: a.cursor });
   });

@@ -36,7 +36,7 @@ const set = (next: Partial<SyncStatus>) => {
 export const httpTransport: SyncTransport = {
   push: (mutations) =>
     apiFetch('/sync/push', { method: 'POST', body: JSON.stringify({ mutations }) }),
-  pull: (since) => apiFetch(`/sync/pull?since=${encodeURIComponent(since)}`),
+  pull: (since) => apiFetch(`/sync/pull?since=${encodeURIComponent(since)}&books=1`),
 };
 
 let userId: string | null = null;

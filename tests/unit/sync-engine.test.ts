@@ -77,7 +77,7 @@ describe('the client sync engine', () => {
     expect(report.applied).toBe(1);
     expect(await db.scenarios.get(ID)).toMatchObject({ revision: 4, syncState: 'synced' });
     expect(await db.outbox.count()).toBe(0);
-    expect((await db.meta.get('cursor:u1'))?.value).toBe('c1');
+    expect((await db.meta.get('cursor:v2:u1'))?.value).toBe('c1');
   });
 
   it('a conflict keeps my edit and the server copy; keep mine rebases, take theirs and keep both lose nothing', async () => {

@@ -15,6 +15,12 @@ import {
 import { jumpMoveProbabilities } from './jump-law';
 import { jumpExposure, type JumpExposure } from './jump-exposure';
 import { pnlSinceTrade, vegaByExpiry, type SinceTrade } from './trade-pnl';
+import {
+  inUnderlyingUnits,
+  otherUnderlying,
+  totalsByCurrency,
+  type CurrencyTotal,
+} from './underlyings';
 import type { Position } from './positions';
 import { applyStress, type Stress } from '../core/stress';
 import type { Market, Model } from '../core/types';
@@ -40,7 +46,10 @@ export interface ScenarioPnl {
 }
 
 export interface SetRevaluation {
+  /** legs and total in units of the underlying (quantity × multiplier), all currencies */
   base: { legs: LegRisk[]; total: BookTotal };
+  /** the base's totals per currency of the legs, on the base's one underlying */
+  totals: CurrencyTotal[];
   /** P&L since trade of the legs with a trade price, under the base */
   sinceTrade: SinceTrade;
   /** the base's vega per vol point by expiry bucket */
@@ -76,11 +85,12 @@ function ladderPnl(values: Float64Array[], now: number): number[] {
 export function revalueSet(
   base: BookScenario,
   scenarios: readonly BookScenario[],
-  positions: readonly Position[],
+  booked: readonly Position[],
   ladder: LadderSpec,
   volReaction = DEFAULT_VOL_REACTION,
 ): SetRevaluation {
   const started = performance.now();
+  const positions = inUnderlyingUnits(booked);
   const moves = ladderMoves(ladder);
   const legs = legRisks(base.market, base.model, positions);
   const total = bookTotal(legs);
@@ -101,16 +111,13 @@ export function revalueSet(
     total.value,
   );
   const results: ScenarioPnl[] = scenarios.map((s) => {
+    const elsewhere = otherUnderlying(base.market, s.market);
     const stressed = applyStress(s.market, s.model, s.stress ?? {});
-    if (stressed.issues.length > 0)
-      return {
-        id: s.id,
-        name: s.name,
-        legPnl: null,
-        total: null,
-        issues: stressed.issues,
-        ladder: null,
-      };
+    const issues = elsewhere
+      ? [{ path: 'market.underlying', message: elsewhere }]
+      : stressed.issues;
+    if (issues.length > 0)
+      return { id: s.id, name: s.name, legPnl: null, total: null, issues, ladder: null };
     // one pass over the ladder (with the zero move added if it is not on it) serves both
     const zero = moves.indexOf(0);
     const all = legValuesAtMoves(
@@ -132,9 +139,11 @@ export function revalueSet(
       ladder: scenarioLadder,
     };
   });
+  const sinceTrade = pnlSinceTrade(positions, legs);
   return {
     base: { legs, total },
-    sinceTrade: pnlSinceTrade(positions, legs),
+    totals: totalsByCurrency(base.market, booked, legs, sinceTrade.legs),
+    sinceTrade,
     vegaByExpiry: vegaByExpiry(positions, legs),
     scenarios: results,
     moves,

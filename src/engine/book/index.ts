@@ -8,3 +8,5 @@ export * from './schema';
 export * from './jump-exposure';
 export * from './wing-hedge';
 export * from './trade-pnl';
+export * from './book-document';
+export * from './underlyings';

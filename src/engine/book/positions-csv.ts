@@ -42,7 +42,7 @@ export function parsePositionsCsv(text: string, valuationDate: string): ParsedPo
     return {
       positions: [],
       issues: [],
-      fileError: `the header must name the columns id, type, strike, expiry, quantity (and optionally tradePrice); missing: ${missing.join(', ')}`,
+      fileError: `the header must name the columns id, type, strike, expiry, quantity (and optionally tradePrice, multiplier, currency); missing: ${missing.join(', ')}`,
     };
   }
   // keep file line numbers: row i of the data is line i + 2; blank lines are skipped here

@@ -61,6 +61,23 @@ export function validatePositionRows(
       }
       position.tradePrice = tp;
     }
+    const multiplierRaw = (fields.multiplier ?? '').trim();
+    if (multiplierRaw !== '') {
+      const m = Number(multiplierRaw);
+      if (!Number.isFinite(m) || m <= 0 || m > 1e6) {
+        bad('multiplier', 'must be a positive number up to 1e6 when given');
+        continue;
+      }
+      position.multiplier = m;
+    }
+    const currencyRaw = (fields.currency ?? '').trim().toUpperCase();
+    if (currencyRaw !== '') {
+      if (!/^[A-Z]{3}$/.test(currencyRaw)) {
+        bad('currency', `"${fields.currency}" is not a three-letter currency code such as EUR`);
+        continue;
+      }
+      position.currency = currencyRaw;
+    }
     if (typeRaw !== 'underlying') {
       const strike = Number((fields.strike ?? '').trim());
       if ((fields.strike ?? '').trim() === '' || !Number.isFinite(strike) || strike <= 0) {

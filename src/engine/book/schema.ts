@@ -15,6 +15,13 @@ export const positionSchema = z
       'must be non-zero and at most 1e9 in size',
     ),
     tradePrice: bounded(0, 1e12).optional(),
+    /** units of the underlying per contract (1 when not given); value and Greeks scale by it */
+    multiplier: positiveUpTo(1e6).optional(),
+    /** the currency the leg is booked in (ISO 4217); totals are kept per currency */
+    currency: z
+      .string()
+      .regex(/^[A-Z]{3}$/, 'must be a three-letter currency code such as EUR')
+      .optional(),
   })
   .superRefine((p, ctx) => {
     if (p.type === 'underlying') return;
@@ -24,22 +31,31 @@ export const positionSchema = z
       ctx.addIssue({ code: 'custom', path: ['expiry'], message: 'is required for an option' });
   });
 
+/** Each position id at most once. */
+function uniqueIds(ps: { id: string }[], ctx: z.RefinementCtx) {
+  const seen = new Set<string>();
+  ps.forEach((p, i) => {
+    if (seen.has(p.id))
+      ctx.addIssue({
+        code: 'custom',
+        path: [i, 'id'],
+        message: `"${p.id}" appears more than once`,
+      });
+    seen.add(p.id);
+  });
+}
+
 export const positionsSchema = z
   .array(positionSchema)
   .min(1, 'needs at least one position')
   .max(20000, 'at most 20000 positions')
-  .superRefine((ps, ctx) => {
-    const seen = new Set<string>();
-    ps.forEach((p, i) => {
-      if (seen.has(p.id))
-        ctx.addIssue({
-          code: 'custom',
-          path: [i, 'id'],
-          message: `"${p.id}" appears more than once`,
-        });
-      seen.add(p.id);
-    });
-  });
+  .superRefine(uniqueIds);
+
+/** A book's positions as stored: may be empty (a book starts with none). */
+export const bookPositionsSchema = z
+  .array(positionSchema)
+  .max(20000, 'at most 20000 positions')
+  .superRefine(uniqueIds);
 
 export const ladderSchema = z
   .object({

@@ -12,6 +12,7 @@ import solver, { type SolveResult } from 'javascript-lp-solver';
 import { priceOptions } from '../analytic/pricing';
 import { ladderMoves, legValuesAtMoves, sumRow } from './book';
 import type { Position } from './positions';
+import { inUnderlyingUnits } from './underlyings';
 import type { Market, Model, OptionSpec } from '../core/types';
 
 export interface WingHedgeRequest {
@@ -58,13 +59,14 @@ function ladderParts(
   positions: readonly Position[],
   req: Pick<WingHedgeRequest, 'instruments' | 'from' | 'to' | 'steps'>,
 ): LadderParts {
+  const units = inUnderlyingUnits(positions);
   const moves = ladderMoves({
     from: req.from ?? DEFAULT_WING_RANGE.from,
     to: req.to ?? DEFAULT_WING_RANGE.to,
     steps: req.steps ?? DEFAULT_WING_RANGE.steps,
   });
   const all = [0, ...moves];
-  const bookRows = legValuesAtMoves(market, model, positions, all).map(sumRow);
+  const bookRows = legValuesAtMoves(market, model, units, all).map(sumRow);
   const before = moves.map((_, i) => bookRows[i + 1] - bookRows[0]);
   const legs: Position[] = req.instruments.map((o, j) => ({
     id: `hedge-${j}`,
@@ -113,7 +115,7 @@ export function suggestWingHedge(
 ): WingHedge {
   const parts = ladderParts(market, model, positions, req);
   const { moves, before, unit, prices } = parts;
-  const size = positions.reduce(
+  const size = inUnderlyingUnits(positions).reduce(
     (a, p) => a + (p.type === 'underlying' ? 0 : Math.abs(p.quantity)),
     0,
   );

@@ -30,6 +30,18 @@ const curve = z
   );
 
 export const marketSchema = z.looseObject({
+  /** the underlying's name: a book never adds up P&L of scenarios on different underlyings */
+  underlying: z
+    .string()
+    .trim()
+    .min(1, 'must not be empty')
+    .max(60, 'at most 60 characters')
+    .optional(),
+  /** the currency prices are quoted in (ISO 4217) */
+  currency: z
+    .string()
+    .regex(/^[A-Z]{3}$/, 'must be a three-letter currency code such as EUR')
+    .optional(),
   spot: positiveUpTo(1e9),
   rate: bounded(-1, 1).optional(),
   dividendYield: bounded(-1, 1).optional(),

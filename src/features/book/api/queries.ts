@@ -1,18 +1,26 @@
-/** The Book feature's query keys and options: device-only books and their revaluation. */
+/** The Book feature's query keys and options: device-only books, desk books, revaluation. */
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import type { BookRequest } from '../../../workers/engine-api';
 import { appDb } from '../../../store/db';
 import { listBooks } from '../../../store/books';
+import { listDeskBooks } from '../../../store/desk-books';
 import { engineWorker } from '../../../workers/engine-client';
 
 export const bookKeys = {
   books: ['local', 'books'] as const,
+  deskBooks: ['local', 'desk-books'] as const,
   revaluation: (request: BookRequest | null) => ['engine', 'book', request] as const,
 };
 
 export const localBooksQuery = queryOptions({
   queryKey: bookKeys.books,
   queryFn: () => listBooks(appDb()),
+  staleTime: Infinity,
+});
+
+export const deskBooksQuery = queryOptions({
+  queryKey: bookKeys.deskBooks,
+  queryFn: () => listDeskBooks(appDb()),
   staleTime: Infinity,
 });
 

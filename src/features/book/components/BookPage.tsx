@@ -8,18 +8,20 @@ import { PositionsUpload } from './PositionsUpload';
 import { BookPanel } from './BookPanel';
 import { JumpExposurePanel } from './JumpExposurePanel';
 import { WingHedgePanel } from './WingHedgePanel';
+import { BookTotals } from './BookTotals';
+import { DeskBookStatus } from './DeskBookStatus';
 import { CautionNote } from '../../../components/CautionNote';
 import { formatNumber } from '../../../components/format';
 import { DEFAULT_VOL_REACTION, type Position } from '../../../engine/book';
-import type { StoredScenario } from '../../../store/db';
 import { localScenariosQuery } from '../../../store/hooks';
+import { DEFAULT_LADDER, useRevaluation } from '../hooks/use-book';
 import {
-  DEFAULT_LADDER,
-  localBooksQuery,
+  useBooks,
+  useChangeBook,
   useCreateBook,
-  useRevaluation,
-  useUpdateBook,
-} from '../hooks/use-book';
+  useResolveBook,
+  type BookChange,
+} from '../hooks/use-book-source';
 
 /** A third of the premium the short options took in, to two significant figures (at least 1). */
 function startingBudget(legs: { value: number }[], positions: Position[]): number {
@@ -32,87 +34,65 @@ function startingBudget(legs: { value: number }[], positions: Position[]): numbe
 
 const today = () => new Date().toISOString().slice(0, 10);
 
-/** A set may mix underlyings by mistake: say so when a scenario's spot is far from the base's. */
-function UnderlyingWarning({
-  scenarios,
-  baseId,
-}: {
-  scenarios: StoredScenario[];
-  baseId: string | null;
-}) {
-  const base = scenarios.find((s) => s.id === baseId) ?? scenarios[0];
-  if (!base) return null;
-  const odd = scenarios.filter(
-    (s) => Math.abs(Math.log(s.document.market.spot / base.document.market.spot)) > Math.log(1.5),
-  );
-  if (odd.length === 0) return null;
-  return (
-    <p role="note" className="text-sm text-warn">
-      {odd
-        .map(
-          (s) =>
-            `${s.name} has spot ${formatNumber(s.document.market.spot, 2)} against the base's ${formatNumber(base.document.market.spot, 2)}`,
-        )
-        .join('; ')}{' '}
-      — a different underlying? Its P&amp;L revalues this book at that spot.
-    </p>
-  );
-}
-
 export function BookPage() {
   const [params, setParams] = useSearchParams();
-  const sets = useQuery(localBooksQuery);
+  const { books, writableSets, isPending } = useBooks();
   const scenarios = useQuery(localScenariosQuery);
   const create = useCreateBook();
-  const update = useUpdateBook();
+  const change = useChangeBook();
+  const resolve = useResolveBook();
   const [selectedLeg, setSelectedLeg] = useState<string | null>(null);
   const [ladderScenario, setLadderScenario] = useState(0);
   const [volReaction, setVolReaction] = useState(DEFAULT_VOL_REACTION);
-  const current = sets.data?.find((s) => s.id === params.get('set')) ?? sets.data?.[0];
+  // ?book=device:<id> | desk:<id>; ?set=<id> is the older link to a device book
+  const wanted = params.get('book') ?? `device:${params.get('set') ?? ''}`;
+  const current = books.find((b) => b.key === wanted) ?? books[0];
   const result = useRevaluation(current, scenarios.data ?? [], DEFAULT_LADDER, volReaction);
-  const setPositions = (positions: Position[]) =>
-    current && update.mutate({ id: current.id, change: { positions } });
+  const update = (c: BookChange) => current && change.mutate({ book: current, change: c });
+  const setPositions = (positions: Position[]) => update({ positions });
   const valuationDate =
     scenarios.data?.find((s) => s.id === current?.baseScenarioId)?.document.valuationDate ??
     today();
 
-  if (sets.isPending || scenarios.isPending) return <p className="text-muted">Opening the book…</p>;
-  const positions = (current?.positions ?? []) as Position[];
-  const members = (scenarios.data ?? []).filter((s) => current?.scenarioIds.includes(s.id));
+  if (isPending || scenarios.isPending) return <p className="text-muted">Opening the book…</p>;
+  const positions = current?.positions ?? [];
+  // a desk book is revalued under its own set's scenarios; a device book under any on the device
+  const candidates = (scenarios.data ?? []).filter((s) =>
+    current?.set ? s.setId === current.set.id : true,
+  );
+  const members = candidates.filter((s) => current?.scenarioIds.includes(s.id));
   const baseScenario = members.find((s) => s.id === current?.baseScenarioId) ?? members[0];
   const legIndex = positions.findIndex((p) => p.id === selectedLeg);
   const data = result.data;
 
   return (
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
-      <aside aria-label="Set and scenarios">
+      <aside aria-label="Book and scenarios">
         <BookPanel
-          sets={sets.data ?? []}
+          books={books}
           current={current}
-          scenarios={scenarios.data ?? []}
-          onPick={(id) => setParams({ set: id })}
-          onCreate={async (name) => {
-            const s = await create.mutateAsync({
+          candidates={candidates}
+          writableSets={writableSets}
+          onPick={(key) => setParams({ book: key })}
+          onCreate={async (name, setId) => {
+            const all = scenarios.data ?? [];
+            const key = await create.mutateAsync({
               name,
-              scenarioIds: (scenarios.data ?? []).map((x) => x.id),
+              setId,
+              scenarioIds: all.filter((x) => setId === null || x.setId === setId).map((x) => x.id),
             });
-            setParams({ set: s.id });
+            setParams({ book: key });
           }}
           onMembers={(ids) =>
             current &&
-            update.mutate({
-              id: current.id,
-              change: {
-                scenarioIds: ids,
-                baseScenarioId: ids.includes(current.baseScenarioId ?? '')
-                  ? current.baseScenarioId
-                  : (ids[0] ?? null),
-              },
+            update({
+              scenarioIds: ids,
+              baseScenarioId: ids.includes(current.baseScenarioId ?? '')
+                ? current.baseScenarioId
+                : (ids[0] ?? null),
             })
           }
-          onBase={(id) =>
-            current && update.mutate({ id: current.id, change: { baseScenarioId: id } })
-          }
+          onBase={(id) => update({ baseScenarioId: id })}
         />
       </aside>
       <section className="min-w-0 space-y-5" aria-labelledby="book-title">
@@ -120,48 +100,40 @@ export function BookPage() {
           Book
         </h1>
         <CautionNote />
+        {change.isError && (
+          <p role="alert" className="text-stressed">
+            {(change.error as Error).message}
+          </p>
+        )}
         {!current ? (
           <p className="text-muted">
-            Create a scenario set on the left; its book of positions is kept with it on this device.
+            Create a book on the left: on this device only, or in one of the desk&apos;s sets, where
+            colleagues see it.
           </p>
         ) : (
           <>
-            <PositionsUpload
-              valuationDate={valuationDate}
-              onAccept={(ps, mode) =>
-                setPositions(
-                  mode === 'replace'
-                    ? ps
-                    : [...positions.filter((p) => !ps.some((q) => q.id === p.id)), ...ps],
-                )
-              }
+            <DeskBookStatus
+              book={current}
+              resolving={resolve.isPending}
+              onResolve={(how) => resolve.mutate({ book: current, how })}
             />
+            {current.editable && (
+              <PositionsUpload
+                valuationDate={valuationDate}
+                onAccept={(ps, mode) =>
+                  setPositions(
+                    mode === 'replace'
+                      ? ps
+                      : [...positions.filter((p) => !ps.some((q) => q.id === p.id)), ...ps],
+                  )
+                }
+              />
+            )}
             {positions.length === 0 ? (
-              <p className="text-muted">No positions in this set yet.</p>
+              <p className="text-muted">No positions in this book yet.</p>
             ) : (
               <>
-                {data && (
-                  <p className="tabular text-sm" data-testid="book-total">
-                    Base value {formatNumber(data.base.total.value, 2)} · delta{' '}
-                    {formatNumber(data.base.total.delta, 2)} · gamma{' '}
-                    {data.base.total.gamma.toExponential(3)} · vega{' '}
-                    {formatNumber(data.base.total.vega, 2)} per vol point · theta{' '}
-                    {formatNumber(data.base.total.theta, 2)} per day · {data.elapsedMs.toFixed(0)}{' '}
-                    ms
-                  </p>
-                )}
-                {data && (
-                  <p className="tabular text-sm" data-testid="book-since-trade">
-                    {data.sinceTrade.priced > 0
-                      ? `P&L since trade ${formatNumber(data.sinceTrade.total, 2)} over the ${data.sinceTrade.priced} leg${data.sinceTrade.priced > 1 ? 's' : ''} with a trade price`
-                      : 'No leg has a trade price: add a tradePrice column for the P&L since trade'}{' '}
-                    · vega by expiry{' '}
-                    {data.vegaByExpiry
-                      .filter((b) => b.vega !== 0)
-                      .map((b) => `${b.label} ${formatNumber(b.vega, 2)}`)
-                      .join(', ') || 'none'}
-                  </p>
-                )}
+                {data && <BookTotals data={data} />}
                 {result.isError && (
                   <p role="alert" className="text-stressed">
                     Revaluation failed: {(result.error as Error).message}
@@ -177,15 +149,17 @@ export function BookPage() {
                     setPositions(positions.map((p) => (p.id === id ? { ...p, quantity: q } : p)))
                   }
                   onRemove={(id) => setPositions(positions.filter((p) => p.id !== id))}
+                  readOnly={!current.editable}
                 />
                 {data && data.scenarios.length > 0 && (
                   <>
-                    <UnderlyingWarning
-                      scenarios={(scenarios.data ?? []).filter((s) =>
-                        current.scenarioIds.includes(s.id),
-                      )}
-                      baseId={current.baseScenarioId}
-                    />
+                    {data.scenarios
+                      .filter((s) => s.issues.some((x) => x.path === 'market.underlying'))
+                      .map((s) => (
+                        <p key={s.id} role="note" className="text-sm text-warn">
+                          {s.name} {s.issues[0].message}.
+                        </p>
+                      ))}
                     <PnlMatrix result={data} positions={positions} onSelect={setSelectedLeg} />
                     {legIndex >= 0 && (
                       <div

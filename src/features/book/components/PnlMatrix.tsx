@@ -126,7 +126,11 @@ export function PnlMatrix({
                   className={`px-2 py-1 ${s.total !== null && s.total < 0 ? 'text-stressed' : ''}`}
                   title={s.issues.map((x) => `${x.path}: ${x.message}`).join('; ')}
                 >
-                  {s.total === null ? 'invalid stress' : formatNumber(s.total, 2)}
+                  {s.total === null
+                    ? s.issues.some((x) => x.path === 'market.underlying')
+                      ? 'other underlying'
+                      : 'invalid stress'
+                    : formatNumber(s.total, 2)}
                 </td>
               ))}
             </tr>

@@ -10,11 +10,16 @@ interface Props {
   onSelect: (id: string) => void;
   onQuantity: (id: string, quantity: number) => void;
   onRemove: (id: string) => void;
+  /** a desk book the user may only read: no quantity edits, no removal */
+  readOnly?: boolean;
 }
 
 const MAX_SHOWN = 300;
 
-/** The book's legs with base value and Greeks; quantity editable in place. */
+/**
+ * The book's legs with base value and Greeks (in units of the underlying: quantity ×
+ * multiplier); quantity editable in place.
+ */
 export function PositionsTable({
   positions,
   risks,
@@ -23,6 +28,7 @@ export function PositionsTable({
   onSelect,
   onQuantity,
   onRemove,
+  readOnly = false,
 }: Props) {
   return (
     <div className="max-h-96 overflow-auto rounded border border-rule">
@@ -35,6 +41,7 @@ export function PositionsTable({
               'strike',
               'expiry (days)',
               'quantity',
+              'contract',
               'vol %',
               'value',
               'delta',
@@ -78,6 +85,7 @@ export function PositionsTable({
                   <input
                     aria-label={`Quantity of ${p.id}`}
                     defaultValue={p.quantity}
+                    readOnly={readOnly}
                     className="tabular w-20 rounded border border-rule bg-panel px-1 text-right"
                     onBlur={(e) => {
                       const q = Number(e.target.value);
@@ -85,6 +93,10 @@ export function PositionsTable({
                       else e.target.value = String(p.quantity);
                     }}
                   />
+                </td>
+                <td className="px-2 py-1 text-muted">
+                  ×{p.multiplier ?? 1}
+                  {p.currency ? ` ${p.currency}` : ''}
                 </td>
                 <td className="px-2 py-1">{r ? formatVol(r.impliedVol) : '…'}</td>
                 <td className="px-2 py-1">{r ? formatNumber(r.value, 2) : '…'}</td>
@@ -105,14 +117,16 @@ export function PositionsTable({
                     : '…'}
                 </td>
                 <td className="px-2 py-1">
-                  <button
-                    type="button"
-                    className="text-xs text-muted hover:text-stressed"
-                    onClick={() => onRemove(p.id)}
-                    aria-label={`Remove ${p.id}`}
-                  >
-                    remove
-                  </button>
+                  {!readOnly && (
+                    <button
+                      type="button"
+                      className="text-xs text-muted hover:text-stressed"
+                      onClick={() => onRemove(p.id)}
+                      aria-label={`Remove ${p.id}`}
+                    >
+                      remove
+                    </button>
+                  )}
                 </td>
               </tr>
             );

@@ -1,29 +1,9 @@
-/** The Book page's data: device-only books, their scenarios, and the revaluation in the worker. */
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { LadderSpec, BookScenario, Position } from '../../../engine/book';
-import { appDb, type LocalBook, type StoredScenario } from '../../../store/db';
-import { createBook, updateBook } from '../../../store/books';
-import { bookKeys, localBooksQuery, revaluationQuery } from '../api/queries';
-
-export { localBooksQuery };
-
-export function useCreateBook() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ name, scenarioIds }: { name: string; scenarioIds: string[] }) =>
-      createBook(appDb(), name, scenarioIds),
-    onSuccess: () => void qc.invalidateQueries({ queryKey: bookKeys.books }),
-  });
-}
-
-export function useUpdateBook() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ id, change }: { id: string; change: Parameters<typeof updateBook>[2] }) =>
-      updateBook(appDb(), id, change),
-    onSuccess: () => void qc.invalidateQueries({ queryKey: bookKeys.books }),
-  });
-}
+/** The Book page's revaluation in the worker, over the book's scenarios. */
+import { useQuery } from '@tanstack/react-query';
+import type { LadderSpec, BookScenario } from '../../../engine/book';
+import type { StoredScenario } from '../../../store/db';
+import { revaluationQuery } from '../api/queries';
+import type { OpenBook } from './use-book-source';
 
 export const DEFAULT_LADDER: LadderSpec = { from: -0.3, to: 0.1, steps: 41 };
 
@@ -38,19 +18,19 @@ function asBookScenario(s: StoredScenario, withStress: boolean): BookScenario {
 }
 
 export function useRevaluation(
-  set: LocalBook | undefined,
+  book: OpenBook | undefined,
   scenarios: StoredScenario[],
   ladder: LadderSpec,
   volReaction: number,
 ) {
-  const members = set ? scenarios.filter((s) => set.scenarioIds.includes(s.id)) : [];
-  const base = members.find((s) => s.id === set?.baseScenarioId) ?? members[0];
+  const members = book ? scenarios.filter((s) => book.scenarioIds.includes(s.id)) : [];
+  const base = members.find((s) => s.id === book?.baseScenarioId) ?? members[0];
   const request =
-    set && base && set.positions.length > 0
+    book && base && book.positions.length > 0
       ? {
           base: asBookScenario(base, false),
           scenarios: members.map((s) => asBookScenario(s, true)),
-          positions: set.positions as Position[],
+          positions: book.positions,
           ladder,
           volReaction,
         }

@@ -3,7 +3,12 @@
  * pilot replay's ES99 (a replay worker, seconds), then the ladder before and after either way.
  */
 import { useMutation } from '@tanstack/react-query';
-import type { Position, WingHedge, WingHedgeRequest } from '../../../engine/book';
+import {
+  inUnderlyingUnits,
+  type Position,
+  type WingHedge,
+  type WingHedgeRequest,
+} from '../../../engine/book';
 import type { Market, Model } from '../../../engine/core';
 import type { Leg, PilotWingHedge } from '../../../engine/replay';
 import { engineWorker } from '../../../workers/engine-client';
@@ -26,9 +31,9 @@ export interface WingAnswer {
   ask: WingAsk;
 }
 
-/** The option legs of a book, as a replay takes them. */
+/** The option legs of a book, as a replay takes them (quantity in units of the underlying). */
 export const replayLegs = (positions: readonly Position[]): Leg[] =>
-  positions
+  inUnderlyingUnits(positions)
     .filter((p) => p.type !== 'underlying')
     .map((p) => ({
       type: p.type as 'call' | 'put',

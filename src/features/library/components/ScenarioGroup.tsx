@@ -5,7 +5,7 @@ import { modelShortLabel, type ScenarioDocument } from '../../../engine/core';
 import type { RemoteSet, StoredScenario } from '../../../store/db';
 import { ConflictPanel } from './ConflictPanel';
 import { HistoryPanel } from './HistoryPanel';
-import { SyncBadge } from './SyncBadge';
+import { SyncBadge } from '../../../components/SyncBadge';
 import { formatDateTime } from '../../../components/format';
 
 export interface RowActions {

@@ -1,4 +1,4 @@
-import type { StoredScenario } from '../../../store/db';
+import type { SyncedItem } from '../store/db';
 
 const TEXT = {
   local: 'this device only',
@@ -13,8 +13,8 @@ const STYLE = {
   conflict: 'border-stressed/60 text-stressed',
 } as const;
 
-/** A scenario's sync state, in words. */
-export function SyncBadge({ s }: { s: StoredScenario }) {
+/** A synced item's state (a scenario's or a desk book's), in words. */
+export function SyncBadge({ s }: { s: SyncedItem }) {
   return (
     <span
       data-testid="sync-state"
