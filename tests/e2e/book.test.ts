@@ -20,14 +20,12 @@ describe('Book', () => {
     await page.goto(env.app().url); // the first visit puts the demo desk's scenarios on the device
     await expect.poll(() => page.getByTestId('smile-chart').count(), { timeout: 20000 }).toBe(1);
     await page.getByRole('link', { name: 'Book' }).click();
-    await page.getByLabel('New set name').fill('Weekly crash ladder');
+    await page.getByLabel('New book name').fill('Weekly crash ladder');
     await page.getByRole('button', { name: 'Create' }).click();
     // the new book is selected (the demo book was there first)
     await expect
       .poll(() =>
-        page
-          .getByLabel('Scenario set')
-          .evaluate((s: HTMLSelectElement) => s.selectedOptions[0]?.text),
+        page.getByLabel('Open book').evaluate((s: HTMLSelectElement) => s.selectedOptions[0]?.text),
       )
       .toMatch(/Weekly crash ladder/);
 

@@ -19,13 +19,11 @@ describe('Wing hedge', () => {
     await page.getByLabel('Paths', { exact: true }).fill('4096');
 
     await page.getByRole('link', { name: 'Book' }).click();
-    await page.getByLabel('New set name').fill('Short put wing');
+    await page.getByLabel('New book name').fill('Short put wing');
     await page.getByRole('button', { name: 'Create' }).click();
     await expect
       .poll(() =>
-        page
-          .getByLabel('Scenario set')
-          .evaluate((s: HTMLSelectElement) => s.selectedOptions[0]?.text),
+        page.getByLabel('Open book').evaluate((s: HTMLSelectElement) => s.selectedOptions[0]?.text),
       )
       .toMatch(/Short put wing/);
     const csv = 'id,type,strike,expiry,quantity,tradePrice\nshort-put-1m,put,4000,0.0822,-10,\n';

@@ -39,7 +39,7 @@ export function BookPanel({
       <label className="flex flex-col gap-1 text-sm">
         <span className={heading}>Book</span>
         <select
-          aria-label="Book"
+          aria-label="Open book"
           value={current?.key ?? ''}
           onChange={(e) => onPick(e.target.value)}
           className={field}

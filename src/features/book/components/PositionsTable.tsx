@@ -83,6 +83,8 @@ export function PositionsTable({
                 </td>
                 <td className="px-2 py-1">
                   <input
+                    // a new quantity from elsewhere (a colleague's edit, synced) replaces the field
+                    key={p.quantity}
                     aria-label={`Quantity of ${p.id}`}
                     defaultValue={p.quantity}
                     readOnly={readOnly}
@@ -94,7 +96,7 @@ export function PositionsTable({
                     }}
                   />
                 </td>
-                <td className="px-2 py-1 text-muted">
+                <td className="whitespace-nowrap px-2 py-1 text-muted">
                   ×{p.multiplier ?? 1}
                   {p.currency ? ` ${p.currency}` : ''}
                 </td>

@@ -26,7 +26,7 @@ export function PositionsUpload({ valuationDate, onAccept }: Props) {
   return (
     <div className="space-y-2">
       <CsvInput
-        hint="columns id, type (call/put/underlying), strike, expiry (date or years), quantity, tradePrice"
+        hint="columns id, type (call/put/underlying), strike, expiry (date or years), quantity; optional tradePrice, multiplier (units per contract), currency"
         placeholder={EXAMPLE}
         maxBytes={MAX_POSITIONS_FILE_BYTES}
         testId="positions-file"
