@@ -10,6 +10,7 @@ import type { Stress, FieldIssue, Market, Model, OptionSpec } from '../engine/co
 import type {
   LadderSpec,
   BookScenario,
+  JumpExposure,
   SetRevaluation,
   Position,
   WingHedge,
@@ -93,6 +94,8 @@ export interface EngineApi {
   price(request: PriceRequest): PriceResponse;
   sensitivities(request: SensitivityRequest): ParameterSensitivity[];
   book(request: BookRequest): SetRevaluation;
+  /** the base book's jump exposure (heavier than the revaluation: asked for after it) */
+  bookJumpExposure(request: BookRequest): JumpExposure;
   /** the options to buy against the book's down-gap losses, within a premium budget */
   wingHedge(request: WingHedgeCall): WingHedge;
   /** the ladder before and after an overlay found by another measure (the replay pilot) */

@@ -1,5 +1,5 @@
 /** The engine work behind each worker command, as plain functions (also used by tests). */
-import { revalueSet, suggestWingHedge, wingLadder } from '../engine/book';
+import { bookJumpExposure, revalueSet, suggestWingHedge, wingLadder } from '../engine/book';
 import {
   atmTermStructure,
   impliedEventMoves,
@@ -109,6 +109,7 @@ export const engineHandlers: EngineApi = {
   price: computePrices,
   sensitivities: (req) => smileSensitivities(req.market, req.model, req.expiry, req.moneyness),
   book: (req) => revalueSet(req.base, req.scenarios, req.positions, req.ladder, req.volReaction),
+  bookJumpExposure: (req) => bookJumpExposure(req.base, req.positions, req.ladder, req.volReaction),
   wingHedge: (req) => suggestWingHedge(req.market, req.model, req.positions, req.wingHedge),
   wingLadder: (req) =>
     wingLadder(req.market, req.model, req.positions, req.wingHedge.instruments, req.quantities),

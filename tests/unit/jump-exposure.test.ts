@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   DEFAULT_VOL_REACTION,
+  bookJumpExposure,
   revalueSet,
   suggestWingHedge,
   type Position,
@@ -56,11 +57,12 @@ describe('jump exposure of a book', () => {
   it('at each ladder point it is the P&L of the instant move less the delta part, V(S(1+m)) − V(S) − Δ·S·m, repriced at the moved spot (definition; the models scale with spot)', () => {
     for (const model of [bates, kou]) {
       const r = revalueSet(scenario(model), [], book, ladder);
+      const e = bookJumpExposure(scenario(model), book, ladder);
       const now = bookValue(model, 0);
-      r.jumpExposure.moves.forEach((m, i) => {
+      e.moves.forEach((m, i) => {
         const direct = bookValue(model, m) - now - r.base.total.delta * market.spot * m;
-        expect(Math.abs(r.jumpExposure.model[i] - direct)).toBeLessThan(1e-8 * market.spot);
-        expect(r.jumpExposure.volReaction[i]).toBeCloseTo(
+        expect(Math.abs(e.model[i] - direct)).toBeLessThan(1e-8 * market.spot);
+        expect(e.volReaction[i]).toBeCloseTo(
           r.volReactionLadder[i] - r.base.total.delta * market.spot * m,
           10,
         );
@@ -86,6 +88,7 @@ describe('jump exposure of a book', () => {
     ];
     for (const [model, density, lo, hi] of cases) {
       const r = revalueSet(scenario(model), [], book, ladder);
+      const e = bookJumpExposure(scenario(model), book, ladder);
       const now = bookValue(model, 0);
       const delta = r.base.total.delta;
       const g = (y: number) =>
@@ -104,29 +107,33 @@ describe('jump exposure of a book', () => {
       };
       const lambda = (model as { jumpIntensity: number }).jumpIntensity;
       const direct = lambda * (romberg(lo, 0, 2000) + romberg(0, hi, 1000));
-      expect(r.jumpExposure.jumpsPerYear).toBe(lambda);
-      expect(Math.abs(r.jumpExposure.expectedJumpPnlPerYear / direct - 1)).toBeLessThan(1e-8);
+      expect(e.jumpsPerYear).toBe(lambda);
+      expect(Math.abs(e.expectedJumpPnlPerYear / direct - 1)).toBeLessThan(1e-8);
     }
   });
 
   it("a stock holding's 1-day 99 % VaR under Black-Scholes is S·q·(e^{(r−q−σ²/2)h + σ√h·z₀.₀₁} − 1) (common practice), and no share of it comes from jumps", () => {
     const bs: Model = { kind: 'black-scholes', sigma: 0.25 };
-    const r = revalueSet(scenario(bs), [], [{ id: 's', type: 'underlying', quantity: 10 }], ladder);
+    const e = bookJumpExposure(
+      scenario(bs),
+      [{ id: 's', type: 'underlying', quantity: 10 }],
+      ladder,
+    );
     const h = 1 / 365;
     const z = normInv(0.01);
     const expected = 10 * 100 * Math.expm1((0.01 - 0.5 * 0.0625) * h + 0.25 * Math.sqrt(h) * z);
-    expect(Math.abs(r.jumpExposure.oneDay.var99 / expected - 1)).toBeLessThan(3e-3);
+    expect(Math.abs(e.oneDay.var99 / expected - 1)).toBeLessThan(3e-3);
     // expected shortfall of a normal: −σ√h·φ(z)/0.01, to first order in the move
-    expect(r.jumpExposure.oneDay.es99).toBeLessThan(r.jumpExposure.oneDay.var99);
-    expect(r.jumpExposure.oneDay.jumpShare).toBe(0);
-    expect(r.jumpExposure.expectedJumpPnlPerYear).toBe(0);
+    expect(e.oneDay.es99).toBeLessThan(e.oneDay.var99);
+    expect(e.oneDay.jumpShare).toBe(0);
+    expect(e.expectedJumpPnlPerYear).toBe(0);
     expect(normCdf(z)).toBeCloseTo(0.01, 12);
   });
 
   it("with rare jumps (1 a year) a short put's 1-day expected shortfall comes mostly from jump days (common practice: jumps live in the tail)", () => {
-    const r = revalueSet(scenario(merton), [], [book[0]], ladder);
-    expect(r.jumpExposure.oneDay.jumpShare).toBeGreaterThan(0.5);
-    expect(r.jumpExposure.expectedJumpPnlPerYear).toBeLessThan(0);
+    const e = bookJumpExposure(scenario(merton), [book[0]], ladder);
+    expect(e.oneDay.jumpShare).toBeGreaterThan(0.5);
+    expect(e.expectedJumpPnlPerYear).toBeLessThan(0);
   });
 });
 

@@ -70,8 +70,6 @@ export interface SetRevaluation {
   /** probability of a jump into each ladder bin within a day and within a week (base model) */
   jumpPerDay: number[];
   jumpPerWeek: number[];
-  /** the base book's exposure to jumps: ladders less the delta part, expected jump P&L, 1-day tail */
-  jumpExposure: JumpExposure;
   elapsedMs: number;
 }
 
@@ -154,10 +152,30 @@ export function revalueSet(
     volReaction,
     jumpPerDay: jumpMoveProbabilities(base.model, moves, 1 / 365),
     jumpPerWeek: jumpMoveProbabilities(base.model, moves, 7 / 365),
-    jumpExposure: jumpExposure(base.market, base.model, positions, moves, total.delta, {
-      model: baseLadder,
-      volReaction: volReactionLadder,
-    }),
     elapsedMs: performance.now() - started,
   };
+}
+
+/**
+ * The base book's exposure to jumps: ladders less the delta part, the expected jump P&L and the
+ * 1-day tail. Its own call, as it revalues every leg at some two thousand moves: the Book page
+ * shows the revaluation first and this when it is ready.
+ */
+export function bookJumpExposure(
+  base: BookScenario,
+  booked: readonly Position[],
+  ladder: LadderSpec,
+  volReaction = DEFAULT_VOL_REACTION,
+): JumpExposure {
+  const positions = inUnderlyingUnits(booked);
+  const moves = ladderMoves(ladder);
+  const legs = legRisks(base.market, base.model, positions);
+  const total = bookTotal(legs);
+  return jumpExposure(base.market, base.model, positions, moves, total.delta, {
+    model: ladderPnl(legValuesAtMoves(base.market, base.model, positions, moves), total.value),
+    volReaction: ladderPnl(
+      volReactionValuesAtMoves(base.market, positions, legs, moves, volReaction),
+      total.value,
+    ),
+  });
 }

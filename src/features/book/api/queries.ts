@@ -10,6 +10,7 @@ export const bookKeys = {
   books: ['local', 'books'] as const,
   deskBooks: ['local', 'desk-books'] as const,
   revaluation: (request: BookRequest | null) => ['engine', 'book', request] as const,
+  jumpExposure: (request: BookRequest | null) => ['engine', 'book-jumps', request] as const,
 };
 
 export const localBooksQuery = queryOptions({
@@ -28,6 +29,17 @@ export const revaluationQuery = (request: BookRequest | null) =>
   queryOptions({
     queryKey: bookKeys.revaluation(request),
     queryFn: () => engineWorker().book(request!),
+    enabled: request !== null,
+    placeholderData: keepPreviousData,
+    staleTime: Infinity,
+    gcTime: 60_000,
+  });
+
+/** Asked after the revaluation (the worker answers in order): the matrix shows first. */
+export const jumpExposureQuery = (request: BookRequest | null) =>
+  queryOptions({
+    queryKey: bookKeys.jumpExposure(request),
+    queryFn: () => engineWorker().bookJumpExposure(request!),
     enabled: request !== null,
     placeholderData: keepPreviousData,
     staleTime: Infinity,

@@ -47,7 +47,12 @@ export function BookPage() {
   // ?book=device:<id> | desk:<id>; ?set=<id> is the older link to a device book
   const wanted = params.get('book') ?? `device:${params.get('set') ?? ''}`;
   const current = books.find((b) => b.key === wanted) ?? books[0];
-  const result = useRevaluation(current, scenarios.data ?? [], DEFAULT_LADDER, volReaction);
+  const { revaluation: result, exposure } = useRevaluation(
+    current,
+    scenarios.data ?? [],
+    DEFAULT_LADDER,
+    volReaction,
+  );
   const update = (c: BookChange) => current && change.mutate({ book: current, change: c });
   const setPositions = (positions: Position[]) => update({ positions });
   const valuationDate =
@@ -217,7 +222,11 @@ export function BookPage() {
                         scenarioIndex={Math.min(ladderScenario, data.scenarios.length - 1)}
                       />
                     </div>
-                    <JumpExposurePanel result={data} />
+                    <JumpExposurePanel
+                      result={data}
+                      exposure={exposure.data}
+                      error={exposure.error}
+                    />
                     {baseScenario && (
                       <WingHedgePanel
                         scenarioId={baseScenario.id}

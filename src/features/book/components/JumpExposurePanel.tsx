@@ -3,14 +3,38 @@
  * delta-hedged book makes or loses on it), the expected jump P&L a year, and how much of the
  * 1-day tail comes from days with a jump. Every figure is a P&L: negative is a loss.
  */
-import type { SetRevaluation } from '../../../engine/book';
+import type { JumpExposure, SetRevaluation } from '../../../engine/book';
 import { formatNumber } from '../../../components/format';
 
 /** The ladder points shown in the table: the down moves a desk hedges and two up moves. */
 const SHOWN = [-0.3, -0.2, -0.15, -0.1, -0.05, 0.05, 0.1];
 
-export function JumpExposurePanel({ result }: { result: SetRevaluation }) {
-  const e = result.jumpExposure;
+export function JumpExposurePanel({
+  result,
+  exposure,
+  error,
+}: {
+  result: SetRevaluation;
+  /** undefined while the worker computes it */
+  exposure: JumpExposure | undefined;
+  error: Error | null;
+}) {
+  if (!exposure)
+    return (
+      <section className="space-y-2" data-testid="jump-exposure" aria-busy={!error}>
+        <h3 className="font-semibold">Jump exposure</h3>
+        {error ? (
+          <p role="alert" className="text-sm text-stressed">
+            The jump exposure failed: {error.message}
+          </p>
+        ) : (
+          <p className="text-sm text-muted">
+            Computing the jump exposure (every leg at some two thousand moves)…
+          </p>
+        )}
+      </section>
+    );
+  const e = exposure;
   const rows = SHOWN.map((m) => e.moves.findIndex((x) => Math.abs(x - m) < 1e-9)).filter(
     (i) => i >= 0,
   );

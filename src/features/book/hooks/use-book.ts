@@ -1,8 +1,8 @@
-/** The Book page's revaluation in the worker, over the book's scenarios. */
+/** The Book page's revaluation and jump exposure in the worker, over the book's scenarios. */
 import { useQuery } from '@tanstack/react-query';
 import type { LadderSpec, BookScenario } from '../../../engine/book';
 import type { StoredScenario } from '../../../store/db';
-import { revaluationQuery } from '../api/queries';
+import { jumpExposureQuery, revaluationQuery } from '../api/queries';
 import type { OpenBook } from './use-book-source';
 
 export const DEFAULT_LADDER: LadderSpec = { from: -0.3, to: 0.1, steps: 41 };
@@ -35,5 +35,8 @@ export function useRevaluation(
           volReaction,
         }
       : null;
-  return useQuery(revaluationQuery(request));
+  const revaluation = useQuery(revaluationQuery(request));
+  // the jump exposure needs only the base: a scenario's stress does not recompute it
+  const exposure = useQuery(jumpExposureQuery(request && { ...request, scenarios: [] }));
+  return { revaluation, exposure };
 }
