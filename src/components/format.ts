@@ -18,14 +18,23 @@ export function formatVol(v: number | null | undefined, digits = 2): string {
     : `${(100 * v).toFixed(digits)}`;
 }
 
+// one formatter per number of digits: toLocaleString with options builds a new one each call,
+// which a table of a few hundred numbers redrawn on every slider step notices
+const formatters = new Map<number, Intl.NumberFormat>();
+
 export function formatNumber(v: number | null | undefined, digits = 4): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return '—';
   // no "-0.00" for values that round to zero
   if (Math.abs(v) < 0.5 * 10 ** -digits) v = 0;
-  return v.toLocaleString('en-US', {
-    minimumFractionDigits: digits,
-    maximumFractionDigits: digits,
-  });
+  let f = formatters.get(digits);
+  if (!f) {
+    f = new Intl.NumberFormat('en-US', {
+      minimumFractionDigits: digits,
+      maximumFractionDigits: digits,
+    });
+    formatters.set(digits, f);
+  }
+  return f.format(v);
 }
 
 export function formatSigned(v: number | null | undefined, digits = 2): string {

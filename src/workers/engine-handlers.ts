@@ -27,9 +27,34 @@ import type {
   SmileResponse,
 } from './engine-api';
 
+/**
+ * The last base surface and base density, kept while only the stress changes (a slider drag
+ * recomputes the stressed side alone). The same computation either way: bit-identical.
+ */
+const lastBase = { key: '', surface: null as SmileSurface | null };
+const lastDensity = { key: '', values: null as number[] | null };
+
+function baseSurface(req: SmileRequest): SmileSurface {
+  const key = JSON.stringify([req.market, req.model, req.expiries, req.moneyness]);
+  if (key !== lastBase.key || !lastBase.surface) {
+    lastBase.surface = smileSurface(req.market, req.model, req.expiries, req.moneyness);
+    lastBase.key = key;
+  }
+  return lastBase.surface;
+}
+
+function baseDensity(model: Model, expiry: number, points: number[]): number[] {
+  const key = JSON.stringify([model, expiry, points]);
+  if (key !== lastDensity.key || !lastDensity.values) {
+    lastDensity.values = logReturnDensity(model, expiry, points);
+    lastDensity.key = key;
+  }
+  return lastDensity.values;
+}
+
 export function computeSmiles(req: SmileRequest): SmileResponse {
   const started = performance.now();
-  const base = smileSurface(req.market, req.model, req.expiries, req.moneyness);
+  const base = baseSurface(req);
   let stressed = null;
   let stressIssues: SmileResponse['stressIssues'] = [];
   let stressedModel = null;
@@ -46,7 +71,7 @@ export function computeSmiles(req: SmileRequest): SmileResponse {
     const points = Array.from({ length: 161 }, (_, i) => -0.4 + (0.6 * i) / 160);
     density = {
       points,
-      base: logReturnDensity(req.model, req.densityExpiry, points),
+      base: baseDensity(req.model, req.densityExpiry, points),
       stressed: stressedModel ? logReturnDensity(stressedModel, req.densityExpiry, points) : null,
     };
   }

@@ -8,6 +8,7 @@ import { benchChainFit } from './chain-fit';
 import { benchMonteCarlo } from './monte-carlo';
 import { benchReplay } from './replay';
 import { benchScheduledMoves } from './scheduled-moves';
+import { benchSketchBrowser } from './sketch-browser';
 import { benchSvcj } from './svcj';
 import { benchSurface } from './surface';
 import { benchSync } from './sync';
@@ -45,3 +46,8 @@ console.log(
   '\nSync service on loopback (autocannon, 10 connections, 5 s each; its own PostgreSQL and service process).',
 );
 console.table(await benchSync());
+
+console.log(
+  '\nSketch in headless Chromium: stress sliders moved by key presses, input to painted smile panels.',
+);
+console.table(await benchSketchBrowser());

@@ -2,6 +2,7 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import type { Market, Model, OptionSpec } from '../../../engine/core';
 import { engineWorker } from '../../../workers/engine-client';
+import { latestWins } from '../../../workers/latest-wins';
 import type { SensitivityRequest, SmileRequest } from '../../../workers/engine-api';
 
 export const sketchKeys = {
@@ -15,10 +16,13 @@ export const sketchKeys = {
 // engine answers depend on their inputs only: never stale, dropped a minute after last use
 const ENGINE_QUERY = { placeholderData: keepPreviousData, staleTime: Infinity, gcTime: 60_000 };
 
+// a slider drag asks for many smiles: those it has moved past are never computed
+const smileChannel = latestWins((request: SmileRequest) => engineWorker().smiles(request));
+
 export const smilesQuery = (request: SmileRequest | null) =>
   queryOptions({
     queryKey: sketchKeys.smiles(request),
-    queryFn: () => engineWorker().smiles(request!),
+    queryFn: ({ signal }) => smileChannel(request!, signal),
     enabled: request !== null,
     ...ENGINE_QUERY,
   });

@@ -8,6 +8,7 @@ import { ModelForm } from './ModelForm';
 import { AXIS_LABEL, SmileChart, type AxisMode } from './SmileChart';
 import { SmileTable } from './SmileTable';
 import { StressPanel } from './StressPanel';
+import { markPainted } from '../painted-mark';
 import { TermStructureChart } from './TermStructureChart';
 import { EventsPanel } from './EventsPanel';
 import { EventMovesTable } from './EventMovesTable';
@@ -26,8 +27,10 @@ import {
 import { ScenarioPicker } from './ScenarioPicker';
 import { TargetVols, type PickedPoint } from './TargetVols';
 import type { TargetVol } from '../../../engine/fit';
+import type { SmileResponse } from '../../../workers/engine-api';
 import { SensitivityTable } from './SensitivityTable';
 import { smileRequest, useGreeks, useSensitivities, useSmiles } from '../hooks/use-smiles';
+import { useSettled } from '../hooks/use-settled';
 import { useSketchScenario, type SaveState } from '../hooks/use-sketch-scenario';
 
 const SAVE_LABEL: Record<SaveState, string> = {
@@ -51,6 +54,18 @@ function pointMassesAt(events: readonly ScheduledMove[], expiry: number): PointM
     ];
   });
 }
+
+/** The base side of two answers is the same: only the stress moved between them. */
+const fingerprints = new WeakMap<SmileResponse, string>();
+function baseFingerprint(r: SmileResponse): string {
+  let f = fingerprints.get(r);
+  if (f === undefined) {
+    f = JSON.stringify([r.base.slices.map((s) => s.impliedVols), r.eventMoves, r.density?.base]);
+    fingerprints.set(r, f);
+  }
+  return f;
+}
+const sameBase = (a: SmileResponse, b: SmileResponse) => baseFingerprint(a) === baseFingerprint(b);
 
 export function SketchPage() {
   const { doc, update, saveState, issues, loadError } = useSketchScenario();
@@ -77,7 +92,9 @@ export function SketchPage() {
     [events],
   );
   const smiles = useSmiles(request);
-  const slice = smiles.data?.base.slices[tableIndex] ?? null;
+  // the smile panels follow every step; the views beside them when the drag pauses
+  const side = useSettled(smiles.data, sameBase);
+  const slice = side?.base.slices[tableIndex] ?? null;
   const options = useMemo<OptionSpec[] | null>(
     () =>
       slice
@@ -222,6 +239,12 @@ export function SketchPage() {
                 mode={axis}
                 targets={targets}
                 onPick={setPicked}
+                onPainted={() =>
+                  markPainted({
+                    engineMs: smiles.data?.elapsedMs ?? 0,
+                    stress: JSON.stringify(request?.stress ?? null),
+                  })
+                }
               />
               <p className="text-xs text-muted">
                 {AXIS_LABEL[axis]} · implied vol in % · computed in{' '}
@@ -229,15 +252,15 @@ export function SketchPage() {
               </p>
             </div>
             <TermStructureChart
-              base={smiles.data.base}
-              stressed={smiles.data.stressed}
-              term={smiles.data.term}
+              base={side!.base}
+              stressed={side!.stressed}
+              term={side!.term}
               events={eventMarkers}
             />
             <EventMovesTable
               valuationDate={doc.valuationDate}
               events={events}
-              estimates={smiles.data.eventMoves}
+              estimates={side!.eventMoves}
               expiries={expiries}
               baseVol={eventBaseVol}
               onBaseVol={(v) => {
@@ -265,7 +288,7 @@ export function SketchPage() {
               {slice && (
                 <SmileTable
                   slice={slice}
-                  stressedSlice={smiles.data.stressed?.slices[tableIndex] ?? null}
+                  stressedSlice={side!.stressed?.slices[tableIndex] ?? null}
                   greeks={greeks.data?.results ?? null}
                   scenarioName={doc.name}
                 />
@@ -277,9 +300,9 @@ export function SketchPage() {
                   model={doc.model}
                 />
               )}
-              {smiles.data.density && (
+              {side!.density && (
                 <DensityChart
-                  density={smiles.data.density}
+                  density={side!.density!}
                   title={`Density of log-returns at ${formatTenor(expiries[tableIndex])}`}
                   pointMasses={pointMasses}
                 />

@@ -55,6 +55,7 @@ export function SmileChart({
   mode,
   targets = NO_TARGETS,
   onPick,
+  onPainted,
 }: {
   base: SmileSurface;
   stressed: SmileSurface | null;
@@ -62,6 +63,8 @@ export function SmileChart({
   targets?: TargetVol[];
   /** a click on a smile: its panel's expiry, the point's ln(K/F) and vol */
   onPick?: (p: { expiry: number; logMoneyness: number; impliedVol: number }) => void;
+  /** Plotly has drawn a new figure (the first or an update) */
+  onPainted?: () => void;
 }) {
   const theme = useTheme();
   const figure = useMemo(() => {
@@ -132,6 +135,8 @@ export function SmileChart({
     <PlotlyChart
       data={figure.data}
       layout={figure.layout}
+      onInitialized={onPainted}
+      onUpdate={onPainted}
       onClick={(e) => {
         const point = e.points[0];
         if (!onPick || !point) return;
