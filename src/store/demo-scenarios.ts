@@ -16,6 +16,15 @@ const grid = {
   moneyness: defaultMoneyness(),
 };
 
+/** The invented index's market: named, so a book never adds its P&L to another underlying's. */
+const LKX_MARKET = {
+  underlying: 'LKX 40',
+  currency: 'EUR',
+  spot: 4250,
+  rate: 0.031,
+  dividendYield: 0.017,
+};
+
 export function demoScenarios(valuationDate: string): ScenarioDocument[] {
   return [
     {
@@ -25,13 +34,7 @@ export function demoScenarios(valuationDate: string): ScenarioDocument[] {
       notes:
         'Larkspur 40 index (invented). Bates base calibrated by the desk: crashes of about 7 % a few times a decade, almost never upward.',
       valuationDate,
-      market: {
-        underlying: 'LKX 40',
-        currency: 'EUR',
-        spot: 4250,
-        rate: 0.031,
-        dividendYield: 0.017,
-      },
+      market: { ...LKX_MARKET },
       model: {
         kind: 'bates',
         v0: 0.0225,
@@ -53,13 +56,7 @@ export function demoScenarios(valuationDate: string): ScenarioDocument[] {
       name: 'LKX 40 index — crash week',
       notes: 'More frequent and deeper crashes on the base.',
       valuationDate,
-      market: {
-        underlying: 'LKX 40',
-        currency: 'EUR',
-        spot: 4250,
-        rate: 0.031,
-        dividendYield: 0.017,
-      },
+      market: { ...LKX_MARKET },
       model: {
         kind: 'bates',
         v0: 0.0225,

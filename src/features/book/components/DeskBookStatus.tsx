@@ -2,6 +2,7 @@
  * A desk book's standing: its set, sync state and last writer; a note when the user may only
  * read it; the service's refusal; and a conflict with the legs that differ and three ways out.
  */
+import { ConflictChoices } from '../../../components/ConflictChoices';
 import { SyncBadge } from '../../../components/SyncBadge';
 import type { BookDocument, Position } from '../../../engine/book';
 import type { OpenBook, Resolution } from '../hooks/use-book-source';
@@ -78,32 +79,7 @@ export function DeskBookStatus({
               )}
             </ul>
           )}
-          <div className="flex flex-wrap gap-3">
-            <button
-              type="button"
-              disabled={resolving}
-              className="rounded border border-teal px-3 py-1 text-teal"
-              onClick={() => onResolve('mine')}
-            >
-              Keep mine
-            </button>
-            <button
-              type="button"
-              disabled={resolving}
-              className="rounded border border-rule px-3 py-1"
-              onClick={() => onResolve('theirs')}
-            >
-              Take theirs
-            </button>
-            <button
-              type="button"
-              disabled={resolving}
-              className="rounded border border-rule px-3 py-1"
-              onClick={() => onResolve('both')}
-            >
-              Keep both (mine as a copy)
-            </button>
-          </div>
+          <ConflictChoices onResolve={onResolve} disabled={resolving} />
         </div>
       )}
     </div>

@@ -4,6 +4,7 @@
  * through one shape, whichever kind it is.
  */
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { ConflictChoice } from '../../../components/ConflictChoices';
 import type { Position } from '../../../engine/book';
 import { appDb, type RemoteSet, type StoredDeskBook } from '../../../store/db';
 import { createBook, updateBook } from '../../../store/books';
@@ -36,7 +37,7 @@ export interface OpenBook {
   editable: boolean;
 }
 
-export type Resolution = 'mine' | 'theirs' | 'both';
+export type Resolution = ConflictChoice;
 
 export function useBooks() {
   const device = useQuery(localBooksQuery);

@@ -1,4 +1,5 @@
 /** A conflict: the fields where my edit and the server's revision differ, and three ways out. */
+import { ConflictChoices } from '../../../components/ConflictChoices';
 import { differingFields } from '../../../sync/conflicts';
 import type { StoredScenario } from '../../../store/db';
 import { documentFieldLabel } from '../../../engine/core';
@@ -47,29 +48,7 @@ export function ConflictPanel({
           </tbody>
         </table>
       )}
-      <div className="flex flex-wrap gap-3 text-sm">
-        <button
-          type="button"
-          className="rounded border border-teal px-3 py-1 text-teal"
-          onClick={() => onResolve('mine')}
-        >
-          Keep mine
-        </button>
-        <button
-          type="button"
-          className="rounded border border-rule px-3 py-1"
-          onClick={() => onResolve('theirs')}
-        >
-          Take theirs
-        </button>
-        <button
-          type="button"
-          className="rounded border border-rule px-3 py-1"
-          onClick={() => onResolve('both')}
-        >
-          Keep both (mine as a copy)
-        </button>
-      </div>
+      <ConflictChoices onResolve={onResolve} />
     </div>
   );
 }
