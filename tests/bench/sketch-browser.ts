@@ -5,7 +5,9 @@
  * event to the page's User Timing mark `sketch:painted` (set once the frame showing the new smile
  * panels is painted): p50 and p95; the main thread's busy time per step (Chromium's own
  * TaskDuration metric, through the DevTools protocol); the engine time per smile request; and,
- * after a drag, whether the last frame shows the final position. The app is served from `dist/`
+ * after a drag, whether the last frame shows the final position. A single press's main-thread
+ * time is counted to its painted frame and, separately, with the side views (term structure,
+ * density, tables) that follow once the step has settled. The app is served from `dist/`
  * with the sync service answering 503, as on a laptop without a connection. The peer is a step
  * that changes nothing on the page (a key press on a slider already at its end).
  */
@@ -120,6 +122,8 @@ export async function benchSketchBrowser(): Promise<Record<string, string>[]> {
     const single: number[] = [];
     const engine: number[] = [];
     const busy: number[] = [];
+    // main thread from the press to its painted frame (the step's own work)
+    const own: number[] = [];
     const dragFinal: number[] = [];
     const dragBusy: number[] = [];
     let dragExact = 0;
@@ -131,15 +135,19 @@ export async function benchSketchBrowser(): Promise<Record<string, string>[]> {
       const before = await taskSeconds(cdp);
       for (let i = 0; i < STEPS; i++) {
         const seen = (await state(page)).paints.length;
+        const start = await taskSeconds(cdp);
         await page.keyboard.press('ArrowRight');
         await page.waitForFunction(
           (n) => (window as unknown as { bench: { paints: Paint[] } }).bench.paints.length > n,
           seen,
           { timeout: 20000, polling: 10 },
         );
+        own.push(1000 * ((await taskSeconds(cdp)) - start));
         const { inputs, paints } = await state(page);
         single.push(paints[paints.length - 1].t - inputs[inputs.length - 1]);
         engine.push(paints[paints.length - 1].engineMs);
+        // the side views follow once the step has settled: wait for them before the next press
+        await page.waitForTimeout(350);
       }
       await settle(page);
       busy.push((1000 * ((await taskSeconds(cdp)) - before)) / STEPS);
@@ -173,7 +181,7 @@ export async function benchSketchBrowser(): Promise<Record<string, string>[]> {
         case: `single presses, ${sliders} sliders × ${STEPS}`,
         'input to painted p50 ms': fmt(quantile(single, 0.5), 3),
         'p95 ms (target ≤ 50)': fmt(quantile(single, 0.95), 3),
-        'main thread ms per step (target ≤ 16)': fmt(quantile(busy, 0.5), 3),
+        'main thread ms per step (target ≤ 16)': `${fmt(quantile(own, 0.5), 3)} to the frame (p95 ${fmt(quantile(own, 0.95), 3)}); ${fmt(quantile(busy, 0.5), 3)} with the side views that follow`,
         'engine ms per request p50 / p95': `${fmt(quantile(engine, 0.5), 3)} / ${fmt(quantile(engine, 0.95), 3)}`,
         'peer: a press that changes nothing, main thread ms': fmt(idle, 2),
       },

@@ -10,7 +10,9 @@ describe('Sketch with a scheduled move', () => {
     const errors = trackErrors(page);
     await page.goto(env.app().url);
     await expect
-      .poll(() => page.locator('[data-testid="smile-chart"] .main-svg').count(), { timeout: 20000 })
+      .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
+        timeout: 20000,
+      })
       .toBeGreaterThan(0);
 
     const panel = page.getByTestId('events-panel');

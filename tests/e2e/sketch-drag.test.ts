@@ -20,7 +20,9 @@ describe('Sketch under a fast drag', () => {
     const errors = trackErrors(page);
     await page.goto(env.app().url);
     await expect
-      .poll(() => page.locator('[data-testid="smile-chart"] .main-svg').count(), { timeout: 20000 })
+      .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
+        timeout: 20000,
+      })
       .toBeGreaterThan(0);
     await page.evaluate(() => {
       const w = window as unknown as { painted: string[] };

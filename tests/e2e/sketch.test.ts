@@ -12,7 +12,9 @@ describe('Sketch', () => {
     const chart = page.getByTestId('smile-chart');
     await expect.poll(() => chart.getAttribute('data-stressed'), { timeout: 20000 }).toBe('no');
     await expect
-      .poll(() => page.locator('[data-testid="smile-chart"] .main-svg').count(), { timeout: 20000 })
+      .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
+        timeout: 20000,
+      })
       .toBeGreaterThan(0);
     const cellBefore = await page
       .getByTestId('smile-table')
@@ -77,14 +79,23 @@ describe('Sketch', () => {
     await expect.poll(() => panel.locator('li').count()).toBe(3);
     // a click on a smile picks its expiry, strike and vol into the entry (the typed entry works too)
     await page.getByTestId('smile-chart').scrollIntoViewIfNeeded();
+    // the 1D panel's base smile, 30 % along its points, where the canvas drew it
     const point = await page.evaluate(() => {
-      const lines = document.querySelectorAll<SVGPathElement>(
-        '[data-testid="smile-chart"] .scatterlayer .trace path.js-line',
-      );
-      const line = lines[0];
-      const at = line.getPointAtLength(line.getTotalLength() * 0.3);
-      const m = line.getScreenCTM()!;
-      return { x: m.a * at.x + m.c * at.y + m.e, y: m.b * at.x + m.d * at.y + m.f };
+      const canvas = document.querySelector<HTMLCanvasElement>('[data-testid="smile-canvas"]')!;
+      const panels = JSON.parse(canvas.dataset.panels!) as {
+        plot: { left: number; top: number; width: number; height: number };
+        x: [number, number];
+        y: [number, number];
+      }[];
+      const g = panels[0];
+      const row = document.querySelectorAll('[data-testid="smile-table"] tbody tr')[12];
+      const k = Number(row.querySelectorAll('td')[1].textContent);
+      const vol = Number(row.querySelectorAll('td')[3].textContent);
+      const box = canvas.getBoundingClientRect();
+      return {
+        x: box.left + g.plot.left + ((k - g.x[0]) / (g.x[1] - g.x[0])) * g.plot.width,
+        y: box.top + g.plot.top + (1 - (vol - g.y[0]) / (g.y[1] - g.y[0])) * g.plot.height,
+      };
     });
     await page.mouse.click(point.x, point.y);
     await expect

@@ -1,5 +1,5 @@
 import type { Data, Layout } from 'plotly.js';
-import { useMemo } from 'react';
+import { useMemo, memo } from 'react';
 import type { DensityCurve } from '../../../workers/engine-api';
 import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
 import { useTheme } from '../../../components/theme';
@@ -18,7 +18,8 @@ export interface PointMass {
  */
 const NO_POINT_MASSES: PointMass[] = [];
 
-export function DensityChart({
+// memo: a slider step re-renders the page, not this (its inputs follow when the drag pauses)
+export const DensityChart = memo(function DensityChart({
   density,
   title,
   pointMasses = NO_POINT_MASSES,
@@ -84,4 +85,4 @@ export function DensityChart({
     return { data, layout };
   }, [density, title, pointMasses, theme]);
   return <PlotlyChart data={figure.data} layout={figure.layout} />;
-}
+});

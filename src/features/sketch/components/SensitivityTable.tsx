@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { naturalStep, type ParameterSensitivity } from '../../../engine/analytic';
 import { formatNumber } from '../../../components/format';
 import { isParameterKey, parameterLabel, type Model } from '../../../engine/core';
@@ -15,7 +16,12 @@ const PICK = [-0.2, -0.1, -0.05, 0, 0.05, 0.1, 0.2];
  * How much the implied vol moves, in vol points, for a step of each parameter a trader thinks
  * in (to first order: ∂σ/∂p × step), at a few moneyness points of one expiry.
  */
-export function SensitivityTable({ sensitivities, logMoneyness, model }: Props) {
+// memo: a slider step re-renders the page, not this (its inputs follow when the drag pauses)
+export const SensitivityTable = memo(function SensitivityTable({
+  sensitivities,
+  logMoneyness,
+  model,
+}: Props) {
   const columns = PICK.map((target) => {
     let best = 0;
     logMoneyness.forEach((k, i) => {
@@ -69,4 +75,4 @@ export function SensitivityTable({ sensitivities, logMoneyness, model }: Props) 
       </table>
     </div>
   );
-}
+});

@@ -55,6 +55,8 @@ function pointMassesAt(events: readonly ScheduledMove[], expiry: number): PointM
   });
 }
 
+const NO_EVENTS: ScheduledMove[] = [];
+
 /** The base side of two answers is the same: only the stress moved between them. */
 const fingerprints = new WeakMap<SmileResponse, string>();
 function baseFingerprint(r: SmileResponse): string {
@@ -82,7 +84,9 @@ export function SketchPage() {
     () => (valid && doc ? smileRequest(doc, expiries[tableIndex]) : null),
     [valid, doc, expiries, tableIndex],
   );
-  const events = useMemo(() => doc?.model.events ?? [], [doc]);
+  // the same array while the moves are unchanged: a stress step must not redraw what hangs on them
+  const modelEvents = doc?.model.events;
+  const events = useMemo(() => modelEvents ?? NO_EVENTS, [modelEvents]);
   const pointMasses = useMemo(
     () => pointMassesAt(events, expiries[tableIndex] ?? 0),
     [events, expiries, tableIndex],

@@ -1,11 +1,29 @@
-import type { Data, Layout } from 'plotly.js';
-import { useMemo } from 'react';
+/**
+ * Base and stressed smiles, one small panel per expiry, drawn on one canvas: a slider step
+ * redraws a few hundred line segments in a millisecond or two, where a chart library lays out
+ * every panel and axis again. At most one draw per animation frame (the newest props win); the
+ * vol axes hold their range while a drag stays inside it. Hovering shows a point's vol; a click
+ * picks its expiry, ln(K/F) and vol (`onPick`).
+ */
+import { useEffect, useRef } from 'react';
 import { normCdf, type SmileSlice, type SmileSurface } from '../../../engine/analytic';
 import type { TargetVol } from '../../../engine/fit';
-import { chartFrame, chartTheme } from '../../../components/chart-theme';
+import { chartTheme, type ChartTheme } from '../../../components/chart-theme';
 import { useTheme } from '../../../components/theme';
 import { formatTenor } from '../../../components/format';
-import { PlotlyChart } from '../../../components/PlotlyChart';
+import {
+  LEGEND_HEIGHT,
+  PANEL_HEIGHT,
+  extent,
+  inside,
+  nearestPoint,
+  panelGrid,
+  panelRect,
+  ticks,
+  toPixel,
+  volRange,
+  type PanelGeometry,
+} from '../smile-panels-geometry';
 
 export type AxisMode = 'strike' | 'moneyness' | 'delta';
 
@@ -21,137 +39,292 @@ function xValues(slice: SmileSlice, mode: AxisMode): (number | null)[] {
   return slice.callDeltas;
 }
 
-function trace(
-  slice: SmileSlice,
-  mode: AxisMode,
-  axis: number,
-  color: string,
-  name: string,
-  dash: 'solid' | 'dash',
-): Data {
-  const x = xValues(slice, mode);
-  const y = slice.impliedVols.map((v) => (v === null ? null : 100 * v));
-  return {
-    type: 'scatter',
-    mode: 'lines',
-    x,
-    y,
-    name,
-    legendgroup: name,
-    showlegend: axis === 1,
-    line: { color, width: 2, dash },
-    xaxis: axis === 1 ? 'x' : `x${axis}`,
-    yaxis: axis === 1 ? 'y' : `y${axis}`,
-    hovertemplate: `${formatTenor(slice.expiry)} ${name}: %{y:.2f}%<extra></extra>`,
-  } as Data;
+const vols = (s: SmileSlice | undefined) =>
+  s ? s.impliedVols.map((v) => (v === null ? null : 100 * v)) : [];
+
+function targetX(t: TargetVol, slice: SmileSlice, mode: AxisMode): number {
+  if (mode === 'moneyness') return t.logMoneyness;
+  if (mode === 'strike') return slice.forward * Math.exp(t.logMoneyness);
+  const sd = t.impliedVol * Math.sqrt(slice.expiry);
+  return normCdf(-t.logMoneyness / sd + 0.5 * sd);
 }
 
 const NO_TARGETS: TargetVol[] = [];
+const FONT = "'Source Sans 3', sans-serif";
 
-/** Base and stressed smiles side by side, one small panel per expiry. */
-export function SmileChart({
-  base,
-  stressed,
-  mode,
-  targets = NO_TARGETS,
-  onPick,
-  onPainted,
-}: {
+interface Props {
   base: SmileSurface;
   stressed: SmileSurface | null;
   mode: AxisMode;
   targets?: TargetVol[];
   /** a click on a smile: its panel's expiry, the point's ln(K/F) and vol */
   onPick?: (p: { expiry: number; logMoneyness: number; impliedVol: number }) => void;
-  /** Plotly has drawn a new figure (the first or an update) */
+  /** called inside the animation frame that drew a new state (before it is painted) */
   onPainted?: () => void;
-}) {
-  const theme = useTheme();
-  const figure = useMemo(() => {
-    const t = chartTheme(theme);
-    const n = base.slices.length;
-    const columns = Math.min(n, n > 4 ? 3 : n);
-    const rows = Math.ceil(n / columns);
-    const data: Data[] = [];
-    const layout: Partial<Layout> = {
-      grid: { rows, columns, pattern: 'independent', xgap: 0.08, ygap: 0.22 },
-      ...chartFrame(t, 12),
-      margin: { l: 44, r: 12, t: 28, b: 36 },
-      height: 250 * rows + 40,
-      legend: { orientation: 'h', y: 1.06 + 0.02 * rows, x: 0 },
-      annotations: [],
-    };
-    base.slices.forEach((slice, i) => {
-      const axis = i + 1;
-      data.push(trace(slice, mode, axis, t.base, 'base', 'solid'));
-      const s = stressed?.slices[i];
-      if (s) data.push(trace(s, mode, axis, t.stressed, 'stressed', 'dash'));
-      const here = targets.filter((x) => Math.abs(x.expiry - slice.expiry) < 1e-9);
-      if (here.length > 0) {
-        const xs = here.map((x) => {
-          if (mode === 'moneyness') return x.logMoneyness;
-          if (mode === 'strike') return slice.forward * Math.exp(x.logMoneyness);
-          const sd = x.impliedVol * Math.sqrt(slice.expiry);
-          return normCdf(-x.logMoneyness / sd + 0.5 * sd);
-        });
-        data.push({
-          type: 'scatter',
-          mode: 'markers',
-          x: xs,
-          y: here.map((x) => 100 * x.impliedVol),
-          name: 'target',
-          showlegend: false,
-          marker: { color: t.teal, size: 9, symbol: 'diamond' },
-          xaxis: axis === 1 ? 'x' : `x${axis}`,
-          yaxis: axis === 1 ? 'y' : `y${axis}`,
-        } as Data);
+}
+
+interface Drawn {
+  geometry: PanelGeometry[];
+  props: Props;
+}
+
+function tickLabel(v: number, mode: AxisMode | 'vol'): string {
+  if (mode === 'vol') return `${Number(v.toFixed(1))}%`;
+  if (mode === 'strike') return v.toLocaleString('en-US', { maximumFractionDigits: 0 });
+  return String(Number(v.toFixed(3)));
+}
+
+function draw(
+  ctx: CanvasRenderingContext2D,
+  width: number,
+  props: Props,
+  held: ([number, number] | null)[],
+  t: ChartTheme,
+): PanelGeometry[] {
+  const { base, stressed, mode } = props;
+  const targets = props.targets ?? NO_TARGETS;
+  const n = base.slices.length;
+  const { rows } = panelGrid(n);
+  ctx.clearRect(0, 0, width, LEGEND_HEIGHT + rows * PANEL_HEIGHT);
+  ctx.font = `12px ${FONT}`;
+  ctx.textBaseline = 'middle';
+  // legend
+  const legend = (x: number, color: string, dash: number[], label: string) => {
+    ctx.strokeStyle = color;
+    ctx.lineWidth = 2;
+    ctx.setLineDash(dash);
+    ctx.beginPath();
+    ctx.moveTo(x, 12);
+    ctx.lineTo(x + 26, 12);
+    ctx.stroke();
+    ctx.setLineDash([]);
+    ctx.fillStyle = t.ink;
+    ctx.textAlign = 'left';
+    ctx.fillText(label, x + 32, 12);
+  };
+  legend(46, t.base, [], 'base');
+  if (stressed) legend(130, t.stressed, [6, 4], 'stressed');
+
+  const geometry: PanelGeometry[] = [];
+  base.slices.forEach((slice, i) => {
+    const s = stressed?.slices[i];
+    const here = targets.filter((x) => Math.abs(x.expiry - slice.expiry) < 1e-9);
+    const xs = xValues(slice, mode);
+    // the x range covers the points drawn (a strike without a vol is not drawn)
+    const drawnX = (c: SmileSlice) => xValues(c, mode).filter((_, k) => c.impliedVols[k] !== null);
+    const ex =
+      extent([
+        ...drawnX(slice),
+        ...(s ? drawnX(s) : []),
+        ...here.map((x) => targetX(x, slice, mode)),
+      ]) ?? ([0, 1] as [number, number]);
+    const pad = 0.02 * (ex[1] - ex[0] || 1);
+    const x: [number, number] =
+      mode === 'delta' ? [ex[1] + pad, ex[0] - pad] : [ex[0] - pad, ex[1] + pad];
+    const y = volRange(
+      [...vols(slice), ...vols(s), ...here.map((v) => 100 * v.impliedVol)],
+      held[i],
+    );
+    held[i] = y;
+    const g: PanelGeometry = { plot: panelRect(i, n, width), x, y };
+    geometry.push(g);
+    const { plot } = g;
+    // grid and tick labels
+    ctx.lineWidth = 1;
+    ctx.strokeStyle = t.grid;
+    ctx.fillStyle = t.muted;
+    ctx.font = `11px ${FONT}`;
+    ctx.textAlign = 'right';
+    for (const v of ticks(y[0], y[1])) {
+      const { py } = toPixel(g, x[0], v);
+      ctx.beginPath();
+      ctx.moveTo(plot.left, Math.round(py) + 0.5);
+      ctx.lineTo(plot.left + plot.width, Math.round(py) + 0.5);
+      ctx.stroke();
+      ctx.fillText(tickLabel(v, 'vol'), plot.left - 5, py);
+    }
+    ctx.textAlign = 'center';
+    for (const v of ticks(x[0], x[1], 4)) {
+      const { px } = toPixel(g, v, y[0]);
+      ctx.beginPath();
+      ctx.moveTo(Math.round(px) + 0.5, plot.top);
+      ctx.lineTo(Math.round(px) + 0.5, plot.top + plot.height);
+      ctx.stroke();
+      ctx.fillText(tickLabel(v, mode), px, plot.top + plot.height + 12);
+    }
+    ctx.strokeRect(plot.left + 0.5, plot.top + 0.5, plot.width, plot.height);
+    ctx.fillStyle = t.ink;
+    ctx.font = `bold 13px ${FONT}`;
+    ctx.textAlign = 'left';
+    ctx.fillText(formatTenor(slice.expiry), plot.left, plot.top - 12);
+    // the smiles, clipped to the panel
+    ctx.save();
+    ctx.beginPath();
+    ctx.rect(plot.left, plot.top, plot.width, plot.height);
+    ctx.clip();
+    const line = (xv: (number | null)[], yv: (number | null)[], color: string, dash: number[]) => {
+      ctx.strokeStyle = color;
+      ctx.lineWidth = 2;
+      ctx.setLineDash(dash);
+      ctx.beginPath();
+      let open = false;
+      for (let k = 0; k < xv.length; k++) {
+        const a = xv[k];
+        const b = yv[k];
+        if (a === null || b === null) {
+          open = false;
+          continue;
+        }
+        const p = toPixel(g, a, b);
+        if (open) ctx.lineTo(p.px, p.py);
+        else ctx.moveTo(p.px, p.py);
+        open = true;
       }
-      const suffix = axis === 1 ? '' : String(axis);
-      const axisStyle = {
-        gridcolor: t.grid,
-        zerolinecolor: t.grid,
-        linecolor: t.grid,
-        tickfont: { color: t.muted },
-      };
-      (layout as Record<string, unknown>)[`xaxis${suffix}`] = {
-        ...axisStyle,
-        autorange: mode === 'delta' ? 'reversed' : true,
-      };
-      (layout as Record<string, unknown>)[`yaxis${suffix}`] = { ...axisStyle, ticksuffix: '%' };
-      layout.annotations!.push({
-        text: `<b>${formatTenor(slice.expiry)}</b>`,
-        xref: `x${suffix} domain` as never,
-        yref: `y${suffix} domain` as never,
-        x: 0,
-        y: 1.12,
-        showarrow: false,
-        xanchor: 'left',
-        font: { size: 13, color: t.ink },
+      ctx.stroke();
+      ctx.setLineDash([]);
+    };
+    line(xs, vols(slice), t.base, []);
+    if (s) line(xValues(s, mode), vols(s), t.stressed, [6, 4]);
+    ctx.fillStyle = t.teal;
+    for (const target of here) {
+      const p = toPixel(g, targetX(target, slice, mode), 100 * target.impliedVol);
+      ctx.beginPath();
+      ctx.moveTo(p.px, p.py - 6);
+      ctx.lineTo(p.px + 6, p.py);
+      ctx.lineTo(p.px, p.py + 6);
+      ctx.lineTo(p.px - 6, p.py);
+      ctx.closePath();
+      ctx.fill();
+    }
+    ctx.restore();
+  });
+  return geometry;
+}
+
+/** The drawn point under the pointer: its surface ("base" or "stressed"), panel and index. */
+function hit(d: Drawn, px: number, py: number) {
+  let best: { which: 'base' | 'stressed'; panel: number; index: number; distance: number } | null =
+    null;
+  d.geometry.forEach((g, panel) => {
+    if (!inside(g.plot, px, py, 8)) return;
+    for (const which of ['base', 'stressed'] as const) {
+      const slice = (which === 'base' ? d.props.base : d.props.stressed)?.slices[panel];
+      if (!slice) continue;
+      const near = nearestPoint(g, xValues(slice, d.props.mode), vols(slice), px, py);
+      if (near.index >= 0 && (!best || near.distance < best.distance))
+        best = { which, panel, index: near.index, distance: near.distance };
+    }
+  });
+  return best as { which: 'base' | 'stressed'; panel: number; index: number } | null;
+}
+
+export function SmileChart(props: Props) {
+  const theme = useTheme();
+  const box = useRef<HTMLDivElement>(null);
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const tip = useRef<HTMLDivElement>(null);
+  const latest = useRef(props);
+  const drawn = useRef<Drawn | null>(null);
+  const held = useRef<([number, number] | null)[]>([]);
+  const frame = useRef(0);
+  latest.current = props;
+  const n = props.base.slices.length;
+  const height = LEGEND_HEIGHT + panelGrid(n).rows * PANEL_HEIGHT;
+  const targetsKey = JSON.stringify(props.targets ?? NO_TARGETS);
+
+  useEffect(() => {
+    const el = canvas.current;
+    const container = box.current;
+    if (!el || !container) return;
+    const redraw = () => {
+      cancelAnimationFrame(frame.current);
+      frame.current = requestAnimationFrame(() => {
+        const ctx = el.getContext('2d');
+        const width = container.clientWidth;
+        if (!ctx || width <= 0) return;
+        const ratio = window.devicePixelRatio || 1;
+        if (el.width !== Math.round(width * ratio) || el.height !== Math.round(height * ratio)) {
+          el.width = Math.round(width * ratio);
+          el.height = Math.round(height * ratio);
+          el.style.width = `${width}px`;
+          el.style.height = `${height}px`;
+        }
+        ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
+        const p = latest.current;
+        const geometry = draw(ctx, width, p, held.current, chartTheme(theme));
+        drawn.current = { geometry, props: p };
+        el.dataset.panels = JSON.stringify(geometry);
+        p.onPainted?.();
       });
-    });
-    return { data, layout };
-  }, [base, stressed, mode, targets, theme]);
+    };
+    redraw();
+    const observer = new ResizeObserver(redraw);
+    observer.observe(container);
+    return () => {
+      observer.disconnect();
+      cancelAnimationFrame(frame.current);
+    };
+    // targets by value: a page re-render hands a new (equal) array
+  }, [props.base, props.stressed, props.mode, targetsKey, theme, height]);
+
+  // a new expiry set or axis starts its vol axes afresh
+  useEffect(() => {
+    held.current = [];
+  }, [props.mode, n]);
+
+  const pointAt = (e: React.MouseEvent) => {
+    const d = drawn.current;
+    const rect = canvas.current?.getBoundingClientRect();
+    if (!d || !rect) return null;
+    const h = hit(d, e.clientX - rect.left, e.clientY - rect.top);
+    if (!h) return null;
+    const slice = (h.which === 'base' ? d.props.base : d.props.stressed)!.slices[h.panel];
+    const vol = slice.impliedVols[h.index];
+    return vol === null ? null : { h, slice, vol };
+  };
+
   return (
-    <PlotlyChart
-      data={figure.data}
-      layout={figure.layout}
-      onInitialized={onPainted}
-      onUpdate={onPainted}
-      onClick={(e) => {
-        const point = e.points[0];
-        if (!onPick || !point) return;
-        const name = (point.data as { name?: string }).name;
-        const surface = name === 'stressed' ? stressed : name === 'base' ? base : null;
-        const xaxis = (point.data as { xaxis?: string }).xaxis ?? 'x';
-        const slice = surface?.slices[xaxis === 'x' ? 0 : Number(xaxis.slice(1)) - 1];
-        const vol = slice?.impliedVols[point.pointIndex];
-        if (!slice || vol === null || vol === undefined) return;
-        onPick({
-          expiry: slice.expiry,
-          logMoneyness: slice.logMoneyness[point.pointIndex],
-          impliedVol: vol,
-        });
-      }}
-    />
+    <div ref={box} className="relative w-full" style={{ height }}>
+      <canvas
+        ref={canvas}
+        data-testid="smile-canvas"
+        role="img"
+        aria-label="Implied vol smiles, one panel per expiry: base solid, stressed dashed"
+        className="cursor-crosshair"
+        onMouseMove={(e) => {
+          const found = pointAt(e);
+          const el = tip.current;
+          if (!el) return;
+          if (!found) {
+            el.hidden = true;
+            return;
+          }
+          const g = drawn.current!.geometry[found.h.panel];
+          const xs = xValues(found.slice, drawn.current!.props.mode);
+          const p = toPixel(g, xs[found.h.index]!, 100 * found.vol);
+          el.hidden = false;
+          el.style.left = `${p.px + 8}px`;
+          el.style.top = `${p.py - 28}px`;
+          el.textContent = `${formatTenor(found.slice.expiry)} ${found.h.which}: ${(100 * found.vol).toFixed(2)}% at ln(K/F) ${found.slice.logMoneyness[found.h.index].toFixed(3)}`;
+        }}
+        onMouseLeave={() => {
+          if (tip.current) tip.current.hidden = true;
+        }}
+        onClick={(e) => {
+          const found = pointAt(e);
+          if (!found || !props.onPick) return;
+          props.onPick({
+            expiry: found.slice.expiry,
+            logMoneyness: found.slice.logMoneyness[found.h.index],
+            impliedVol: found.vol,
+          });
+        }}
+      />
+      <div
+        ref={tip}
+        hidden
+        className="tabular pointer-events-none absolute rounded border border-rule bg-panel px-2 py-0.5 text-xs shadow-sm"
+      />
+    </div>
   );
 }

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import type { OptionResult, SmileSlice } from '../../../engine/analytic';
 import { formatNumber, formatSigned, formatTenor, formatVol } from '../../../components/format';
 import { downloadText, toCsv } from '../../../components/csv';
@@ -25,7 +26,13 @@ const HEADER = [
 ];
 
 /** Prices, vols and Greeks at one expiry; the option at each strike is the out-of-the-money one. */
-export function SmileTable({ slice, stressedSlice, greeks, scenarioName }: Props) {
+// memo: a slider step re-renders the page, not this (its inputs follow when the drag pauses)
+export const SmileTable = memo(function SmileTable({
+  slice,
+  stressedSlice,
+  greeks,
+  scenarioName,
+}: Props) {
   const rows = slice.strikes.map((K, i) => {
     const k = slice.logMoneyness[i];
     const base = slice.impliedVols[i];
@@ -113,4 +120,4 @@ export function SmileTable({ slice, stressedSlice, greeks, scenarioName }: Props
       </div>
     </div>
   );
-}
+});

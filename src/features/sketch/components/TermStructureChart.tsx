@@ -1,5 +1,5 @@
 import type { Data, Layout } from 'plotly.js';
-import { useMemo } from 'react';
+import { useMemo, memo } from 'react';
 import type { SmileSurface } from '../../../engine/analytic';
 import type { AtmTerm } from '../../../workers/engine-api';
 import { chartFrame, chartTheme, panelTitle } from '../../../components/chart-theme';
@@ -23,7 +23,8 @@ export interface EventMarker {
  * ATM, RR25 and BF25 against expiry, base and stressed. The ATM panel draws the denser term
  * curve it is given, with a dotted line at each scheduled move's date.
  */
-export function TermStructureChart({
+// memo: a slider step re-renders the page, not this (its inputs follow when the drag pauses)
+export const TermStructureChart = memo(function TermStructureChart({
   base,
   stressed,
   term,
@@ -138,4 +139,4 @@ export function TermStructureChart({
     return { data, layout: layout as Partial<Layout> };
   }, [base, stressed, term, events, theme]);
   return <PlotlyChart data={figure.data} layout={figure.layout} />;
-}
+});
