@@ -17,13 +17,23 @@ if (major < 20 || (major === 20 && minor < 19)) {
 }
 
 const stale = !existsSync(marker) || statSync(lock).mtimeMs > statSync(marker).mtimeMs + 1000;
+// A registry that stalls mid-download fails npm ci now and then (an idle timeout): try again,
+// a few seconds later, before giving up.
+const ATTEMPTS = 3;
 if (stale) {
-  console.log('Installing dependencies (npm ci)…');
-  try {
-    execFileSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
-  } catch {
-    console.error('npm ci failed; see the messages above.');
-    process.exit(1);
+  for (let attempt = 1; ; attempt++) {
+    console.log(`Installing dependencies (npm ci)${attempt > 1 ? `, attempt ${attempt}` : ''}…`);
+    try {
+      execFileSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
+      break;
+    } catch {
+      if (attempt === ATTEMPTS) {
+        console.error(`npm ci failed ${ATTEMPTS} times; see the messages above.`);
+        process.exit(1);
+      }
+      console.error('npm ci failed; trying again in 10 s.');
+      execFileSync(process.execPath, ['-e', 'setTimeout(() => {}, 10000)']);
+    }
   }
 }
 
