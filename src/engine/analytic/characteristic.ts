@@ -5,14 +5,40 @@
  * real w for moments. Complex arithmetic is inlined on (re, im) pairs: this is the hot loop.
  */
 import { expectedJumps, type Diffusion, type JumpLaw, type ModelSpec } from '../core/model-spec';
-import { touches, twoPointOutcomes, type ScheduledMove } from '../core/scheduled-moves';
-import { intensitySegments, priceVarianceTerm, type PriceVarianceTerm } from './svcj';
+import {
+  intensityAt,
+  touches,
+  twoPointOutcomes,
+  type ScheduledMove,
+} from '../core/scheduled-moves';
+import {
+  intensitySegments,
+  priceVarianceRate,
+  priceVarianceTerm,
+  type PriceVarianceRate,
+  type PriceVarianceTerm,
+} from './svcj';
 
 export { modelSpec } from '../core/models';
 export type { Diffusion, JumpLaw, ModelSpec } from '../core/model-spec';
 
 /**
- * Writes ln E[e^{wY}] for w = wr[j] + i·wi[j], j < count, into (outRe, outIm).
+ * Where the time slope of ln φ goes: ∂/∂τ ln E[e^{wY}] when the valuation moves back by τ with
+ * the expiry, dated risk and the intensity schedule held at their calendar dates (so −∂/∂t, the
+ * calendar theta's direction). For an affine model ln φ = C + D·v0 solves the backward equation,
+ * so this slope is the generator at the valuation date applied to e^{wY + C + Dv} (Duffie, Pan &
+ * Singleton 2000, section 2):
+ *   v0·(½(w² − w) − βD + ½ξ²D²) + κθD + λ(0)·(E[e^{wZ_S + D·Z_V}] − 1 − w·m̄),
+ * with the scheduled moves (still ahead) contributing nothing.
+ */
+export interface TimeSlopeOut {
+  re: Float64Array;
+  im: Float64Array;
+}
+
+/**
+ * Writes ln E[e^{wY}] for w = wr[j] + i·wi[j], j < count, into (outRe, outIm), and when `slope`
+ * is given its time slope (see `TimeSlopeOut`) too.
  */
 export function logCharacteristic(
   spec: ModelSpec,
@@ -22,6 +48,7 @@ export function logCharacteristic(
   outRe: Float64Array,
   outIm: Float64Array,
   count: number,
+  slope?: TimeSlopeOut,
 ): void {
   const d = spec.diffusion;
   if (d.type === 'constant') {
@@ -32,11 +59,18 @@ export function logCharacteristic(
       // ½σ²T (w² − w)
       outRe[j] = half * (a * a - b * b - a);
       outIm[j] = half * (2 * a * b - b);
+      if (slope) {
+        slope.re[j] = (half / T) * (a * a - b * b - a);
+        slope.im[j] = (half / T) * (2 * a * b - b);
+      }
     }
   }
   const jl = spec.jumps;
   // a time-varying intensity enters European prices only through Λ(T) = ∫₀ᵀ λ(s) ds
   const lt = expectedJumps(spec, T);
+  // and their time slope through the intensity now
+  const lambdaNow =
+    jl.type === 'none' ? 0 : intensityAt(jl.jumpIntensity, spec.intensitySchedule, 0);
   if (d.type === 'heston') {
     // SVCJ's jump term needs the Heston kernel's quantities at each w: computed alongside
     const withJumps =
@@ -48,11 +82,18 @@ export function logCharacteristic(
             T,
           )
         : null;
-    hestonLogCf(d, T, wr, wi, outRe, outIm, count, withJumps);
+    const jumpRate =
+      slope && jl.type === 'price-variance' && lambdaNow > 0
+        ? priceVarianceRate(jl, lambdaNow)
+        : null;
+    hestonLogCf(d, T, wr, wi, outRe, outIm, count, withJumps, slope, jumpRate);
   }
-  if (jl.type === 'lognormal' && lt > 0) addLognormalJumps(jl, lt, wr, wi, outRe, outIm, count);
-  if (jl.type === 'double-exponential' && lt > 0) {
-    addDoubleExponentialJumps(jl, lt, wr, wi, outRe, outIm, count);
+  const rate = slope ? { out: slope, lambda: lambdaNow } : undefined;
+  if (jl.type === 'lognormal' && (lt > 0 || lambdaNow > 0)) {
+    addLognormalJumps(jl, lt, wr, wi, outRe, outIm, count, rate);
+  }
+  if (jl.type === 'double-exponential' && (lt > 0 || lambdaNow > 0)) {
+    addDoubleExponentialJumps(jl, lt, wr, wi, outRe, outIm, count, rate);
   }
   if (spec.events) {
     for (const e of spec.events)
@@ -116,6 +157,8 @@ function hestonLogCf(
   outIm: Float64Array,
   count: number,
   jumpTerm: PriceVarianceTerm | null = null,
+  slope?: TimeSlopeOut,
+  jumpRate: PriceVarianceRate | null = null,
 ): void {
   const { v0, kappa, theta, volOfVol: xi, rho } = h;
   const extra = new Float64Array(2);
@@ -127,6 +170,10 @@ function hestonLogCf(
     if (a === 0 && b === 0) {
       outRe[j] = 0;
       outIm[j] = 0;
+      if (slope) {
+        slope.re[j] = 0;
+        slope.im[j] = 0;
+      }
       continue;
     }
     // q = w − w²
@@ -221,7 +268,27 @@ function hestonLogCf(
       outRe[j] += extra[0];
       outIm[j] += extra[1];
     }
+    if (slope) {
+      // dD/dτ = −½q − βD + ½ξ²D² (the Riccati equation D solves), dC/dτ = κθD
+      const bdr = br * Dr - bi * Di;
+      const bdi = br * Di + bi * Dr;
+      const d2r = Dr * Dr - Di * Di;
+      const d2i = 2 * Dr * Di;
+      slope.re[j] = v0 * (-0.5 * qr - bdr + 0.5 * xi2 * d2r) + kt * Dr;
+      slope.im[j] = v0 * (-0.5 * qi - bdi + 0.5 * xi2 * d2i) + kt * Di;
+      if (jumpRate) {
+        jumpRate(a, b, Dr, Di, extra);
+        slope.re[j] += extra[0];
+        slope.im[j] += extra[1];
+      }
+    }
   }
+}
+
+/** A jump law's share of the time slope: λ(0)·(E[e^{wZ}] − 1 − w·m̄), added to `out`. */
+interface JumpRateOut {
+  out: TimeSlopeOut;
+  lambda: number;
 }
 
 /** Merton (1976) jumps: Λ(e^{wμ + ½δ²w²} − 1) − wΛ(e^{μ + ½δ²} − 1), Λ = λT for a constant λ. */
@@ -233,6 +300,7 @@ function addLognormalJumps(
   outRe: Float64Array,
   outIm: Float64Array,
   count: number,
+  rate?: JumpRateOut,
 ): void {
   const mu = jl.jumpMean;
   const hv = 0.5 * jl.jumpStdev * jl.jumpStdev;
@@ -249,6 +317,10 @@ function addLognormalJumps(
     const xi = m * Math.sin(ei);
     outRe[j] += lt * (xr - a * kbar);
     outIm[j] += lt * (xi - b * kbar);
+    if (rate) {
+      rate.out.re[j] += rate.lambda * (xr - a * kbar);
+      rate.out.im[j] += rate.lambda * (xi - b * kbar);
+    }
   }
 }
 
@@ -264,6 +336,7 @@ function addDoubleExponentialJumps(
   outRe: Float64Array,
   outIm: Float64Array,
   count: number,
+  rate?: JumpRateOut,
 ): void {
   const { upProbability: p, upMean: m1, downMean: m2 } = jl;
   const zeta = p / (1 - m1) + (1 - p) / (1 + m2) - 1;
@@ -288,6 +361,10 @@ function addDoubleExponentialJumps(
     const t2i = (n2i * d2r - n2r * d2i) / d2m;
     outRe[j] += lt * (t1r + t2r - a * zeta);
     outIm[j] += lt * (t1i + t2i - b * zeta);
+    if (rate) {
+      rate.out.re[j] += rate.lambda * (t1r + t2r - a * zeta);
+      rate.out.im[j] += rate.lambda * (t1i + t2i - b * zeta);
+    }
   }
 }
 

@@ -11,6 +11,7 @@ import { logCharacteristic, type ModelSpec } from './characteristic';
 import { cumulants, diffusionVariance } from './cumulants';
 import { expectedJumps } from '../core/model-spec';
 import { touches, twoPointOutcomes } from '../core/scheduled-moves';
+import { slopeSums, stripSums } from './cos-sums';
 
 export interface CosSettings {
   /** truncation width in units of √(c2 + √c4) (Fang & Oosterlee section 5.1) */
@@ -45,9 +46,20 @@ export interface CosExpiry {
   sumAltTail: number;
   /** true when maxTerms was reached before the characteristic function decayed */
   capped: boolean;
+  /** the coefficients' time slopes ∂A_n/∂τ on the same [a, b], when asked for */
+  slope: CosSlope | null;
   /** variance of Y (second cumulant) and of its diffusive part alone */
   variance: number;
   diffusionVariance: number;
+}
+
+/** ∂/∂τ of the series' coefficients and of their strike-independent sums (see `CosExpiry`). */
+export interface CosSlope {
+  coef: Float64Array;
+  coefOverU: Float64Array;
+  coefOverU2: Float64Array;
+  sumOverU2Tail: number;
+  sumAltTail: number;
 }
 
 const BLOCK = 64;
@@ -88,10 +100,16 @@ function eventExtent(spec: ModelSpec, T: number): number {
   return extent;
 }
 
+/**
+ * Prepares one expiry's series. With `withSlope`, the coefficients' time slopes come from the
+ * same characteristic-function values (∂A_n/∂τ = (2/(b − a)) Re[φ(u_n)·∂τ ln φ(u_n)·e^{−i u_n a}],
+ * the range held), so a calendar theta needs no second or third strip.
+ */
 export function prepareCos(
   spec: ModelSpec,
   T: number,
   settings: CosSettings = DEFAULT_COS_SETTINGS,
+  withSlope = false,
 ): CosExpiry {
   const { c1, c2, c4 } = cumulants(spec, T);
   const half =
@@ -104,6 +122,8 @@ export function prepareCos(
   let wi: Float64Array = new Float64Array(capacity);
   let re: Float64Array = new Float64Array(capacity);
   let im: Float64Array = new Float64Array(capacity);
+  let slopeRe: Float64Array = new Float64Array(withSlope ? capacity : 0);
+  let slopeIm: Float64Array = new Float64Array(withSlope ? capacity : 0);
   let n = 0;
   let capped = false;
   for (;;) {
@@ -117,6 +137,10 @@ export function prepareCos(
       wi = grow(wi, capacity);
       re = grow(re, capacity);
       im = grow(im, capacity);
+      if (withSlope) {
+        slopeRe = grow(slopeRe, capacity);
+        slopeIm = grow(slopeIm, capacity);
+      }
     }
     for (let k = n; k < n + BLOCK; k++) wi[k] = k * step;
     logCharacteristic(
@@ -127,6 +151,7 @@ export function prepareCos(
       re.subarray(n),
       im.subarray(n),
       BLOCK,
+      withSlope ? { re: slopeRe.subarray(n), im: slopeIm.subarray(n) } : undefined,
     );
     let blockMax = -Infinity;
     for (let k = n; k < n + BLOCK; k++) blockMax = Math.max(blockMax, re[k]);
@@ -150,6 +175,36 @@ export function prepareCos(
     coef[k] = scale * Math.exp(re[k]) * Math.cos(im[k] - uk * a);
   }
   coef[0] *= 0.5;
+  let slope: CosSlope | null = null;
+  if (withSlope) {
+    const coefSlope = new Float64Array(n);
+    for (let k = 0; k < n; k++) {
+      // Re[φ·(s_r + i s_i)·e^{−iua}] = e^{Re lnφ}(s_r cos ϑ − s_i sin ϑ), ϑ = Im lnφ − u a
+      const angle = im[k] - u[k] * a;
+      coefSlope[k] =
+        scale * Math.exp(re[k]) * (slopeRe[k] * Math.cos(angle) - slopeIm[k] * Math.sin(angle));
+    }
+    coefSlope[0] *= 0.5;
+    slope = { coef: coefSlope, ...derivedSums(u, coefSlope) };
+  }
+  return {
+    expiry: T,
+    a,
+    b,
+    terms: n,
+    u,
+    coef,
+    ...derivedSums(u, coef),
+    capped,
+    slope,
+    variance: c2,
+    diffusionVariance: diffusionVariance(spec, T),
+  };
+}
+
+/** A_n/u_n, A_n/(1 + u_n²) and their strike-independent sums, for one set of coefficients. */
+function derivedSums(u: Float64Array, coef: Float64Array) {
+  const n = coef.length;
   const coefOverU = new Float64Array(n);
   const coefOverU2 = new Float64Array(n);
   for (let k = 0; k < n; k++) {
@@ -162,21 +217,7 @@ export function prepareCos(
     sumOverU2Tail += coefOverU2[k];
     sumAltTail += k % 2 === 1 ? -coefOverU2[k] : coefOverU2[k];
   }
-  return {
-    expiry: T,
-    a,
-    b,
-    terms: n,
-    u,
-    coef,
-    coefOverU,
-    coefOverU2,
-    sumOverU2Tail,
-    sumAltTail,
-    capped,
-    variance: c2,
-    diffusionVariance: diffusionVariance(spec, T),
-  };
+  return { coefOverU, coefOverU2, sumOverU2Tail, sumAltTail };
 }
 
 function grow(arr: Float64Array, size: number): Float64Array {
@@ -188,120 +229,8 @@ function grow(arr: Float64Array, size: number): Float64Array {
 /**
  * Undiscounted prices per unit forward, E[(e^Y − e^k)^+] (call) and E[(e^k − e^Y)^+] (put), with
  * the CDF and density of Y at k, for each log-moneyness k = ln(K/F). Writes into the arrays given.
- */
-/**
- * The strike-dependent sums of the COS series for angles Δ_j = π(k_j − a)/(b − a):
- * S_j = Σ_{n≥1} (A_n/u_n) sin nΔ_j, C_j = Σ_{n≥1} A_n cos nΔ_j and
- * R_j = Σ_{n≥1} A_n (cos nΔ_j + u_n sin nΔ_j)/(1 + u_n²). cos/sin of nΔ come from a rotation
- * recurrence; four strikes advance together so their dependency chains overlap in the CPU.
- */
-function stripSums(
-  prep: CosExpiry,
-  deltas: Float64Array,
-  count: number,
-  S: Float64Array,
-  C: Float64Array,
-  R: Float64Array,
-): void {
-  const { terms, u, coef, coefOverU, coefOverU2 } = prep;
-  let j = 0;
-  for (; j + 4 <= count; j += 4) {
-    const cd0 = Math.cos(deltas[j]),
-      sd0 = Math.sin(deltas[j]);
-    const cd1 = Math.cos(deltas[j + 1]),
-      sd1 = Math.sin(deltas[j + 1]);
-    const cd2 = Math.cos(deltas[j + 2]),
-      sd2 = Math.sin(deltas[j + 2]);
-    const cd3 = Math.cos(deltas[j + 3]),
-      sd3 = Math.sin(deltas[j + 3]);
-    let c0 = 1,
-      s0 = 0,
-      c1 = 1,
-      s1 = 0,
-      c2 = 1,
-      s2 = 0,
-      c3 = 1,
-      s3 = 0;
-    let S0 = 0,
-      S1 = 0,
-      S2 = 0,
-      S3 = 0,
-      C0 = 0,
-      C1 = 0,
-      C2 = 0,
-      C3 = 0,
-      R0 = 0,
-      R1 = 0,
-      R2 = 0,
-      R3 = 0;
-    for (let n = 1; n < terms; n++) {
-      const an = coef[n],
-        au = coefOverU[n],
-        a2 = coefOverU2[n],
-        un = u[n];
-      let t = c0 * cd0 - s0 * sd0;
-      s0 = s0 * cd0 + c0 * sd0;
-      c0 = t;
-      t = c1 * cd1 - s1 * sd1;
-      s1 = s1 * cd1 + c1 * sd1;
-      c1 = t;
-      t = c2 * cd2 - s2 * sd2;
-      s2 = s2 * cd2 + c2 * sd2;
-      c2 = t;
-      t = c3 * cd3 - s3 * sd3;
-      s3 = s3 * cd3 + c3 * sd3;
-      c3 = t;
-      S0 += au * s0;
-      S1 += au * s1;
-      S2 += au * s2;
-      S3 += au * s3;
-      C0 += an * c0;
-      C1 += an * c1;
-      C2 += an * c2;
-      C3 += an * c3;
-      R0 += a2 * (c0 + un * s0);
-      R1 += a2 * (c1 + un * s1);
-      R2 += a2 * (c2 + un * s2);
-      R3 += a2 * (c3 + un * s3);
-    }
-    S[j] = S0;
-    S[j + 1] = S1;
-    S[j + 2] = S2;
-    S[j + 3] = S3;
-    C[j] = C0;
-    C[j + 1] = C1;
-    C[j + 2] = C2;
-    C[j + 3] = C3;
-    R[j] = R0;
-    R[j + 1] = R1;
-    R[j + 2] = R2;
-    R[j + 3] = R3;
-  }
-  for (; j < count; j++) {
-    const cd = Math.cos(deltas[j]);
-    const sd = Math.sin(deltas[j]);
-    let cn = 1,
-      sn = 0,
-      sS = 0,
-      sC = 0,
-      sR = 0;
-    for (let n = 1; n < terms; n++) {
-      const t = cn * cd - sn * sd;
-      sn = sn * cd + cn * sd;
-      cn = t;
-      sS += coefOverU[n] * sn;
-      sC += coef[n] * cn;
-      sR += coefOverU2[n] * (cn + u[n] * sn);
-    }
-    S[j] = sS;
-    C[j] = sC;
-    R[j] = sR;
-  }
-}
-
-/**
- * Undiscounted prices per unit forward, E[(e^Y − e^k)^+] (call) and E[(e^k − e^Y)^+] (put), with
- * the CDF and density of Y at k, for each log-moneyness k = ln(K/F). Writes into the arrays given.
+ * With `timeSlope` (and a prep made with slopes) also ∂/∂τ of those prices at fixed k, the same
+ * for the call and the put since parity holds at every τ.
  */
 export function cosStrip(
   prep: CosExpiry,
@@ -310,6 +239,7 @@ export function cosStrip(
   put: Float64Array,
   cdf: Float64Array,
   density: Float64Array,
+  timeSlope?: Float64Array,
 ): void {
   const { a, b } = prep;
   const a0 = prep.coef[0];
@@ -326,11 +256,13 @@ export function cosStrip(
       call[j] = 1 - ek;
       cdf[j] = 0;
       density[j] = 0;
+      if (timeSlope) timeSlope[j] = 0;
     } else if (k >= b) {
       call[j] = 0;
       put[j] = ek - 1;
       cdf[j] = 1;
       density[j] = 0;
+      if (timeSlope) timeSlope[j] = 0;
     } else inside.push(j);
   }
   const m = inside.length;
@@ -340,6 +272,11 @@ export function cosStrip(
   const C = new Float64Array(m);
   const R = new Float64Array(m);
   stripSums(prep, deltas, m, S, C, R);
+  const slope = timeSlope ? prep.slope : null;
+  if (timeSlope && !slope) throw new Error('cosStrip: time slopes need prepareCos(..., true)');
+  const dS = slope ? new Float64Array(m) : S;
+  const dR = slope ? new Float64Array(m) : R;
+  if (slope) slopeSums(prep, slope, deltas, m, dS, dR);
   for (let i = 0; i < m; i++) {
     const j = inside[i];
     const k = logMoneyness[j];
@@ -352,6 +289,11 @@ export function cosStrip(
       const p = ek * sumPsi - sumChi;
       put[j] = Math.max(p, 0);
       call[j] = put[j] + 1 - ek;
+      if (slope && timeSlope) {
+        const d0 = slope.coef[0];
+        timeSlope[j] =
+          ek * (d0 * (k - a) + dS[i]) - ek * (d0 + dR[i]) + ea * (d0 + slope.sumOverU2Tail);
+      }
     } else {
       // call on [k, b]: V_n = χ_n(k, b) − e^k ψ_n(k, b), with ψ_0(k, b) = b − k, ψ_n = −sin_n/u_n
       const sumAlt = eb * (a0 + prep.sumAltTail); // Σ A_n (−1)^n e^b / (1 + u²)
@@ -359,6 +301,11 @@ export function cosStrip(
       const c = sumAlt - sumChiK - ek * psiKB;
       call[j] = Math.max(c, 0);
       put[j] = call[j] - 1 + ek;
+      if (slope && timeSlope) {
+        const d0 = slope.coef[0];
+        timeSlope[j] =
+          eb * (d0 + slope.sumAltTail) - ek * (d0 + dR[i]) - ek * (d0 * (b - k) - dS[i]);
+      }
     }
     cdf[j] = Math.min(1, Math.max(0, sumPsi));
     density[j] = Math.max(0, a0 + C[i]);

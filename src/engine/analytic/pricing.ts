@@ -2,16 +2,16 @@
  * European option prices and Greeks for any model: grouped by expiry, each expiry priced as a
  * COS strip (closed form for Black-Scholes). Greeks from the same strip: with the model
  * invariant to the scale of spot, S·Δ = V − K ∂V/∂K and S²Γ = K² ∂²V/∂K², where ∂V/∂K and
- * ∂²V/∂K² come from the COS CDF and density of the log-return.
+ * ∂²V/∂K² come from the COS CDF and density of the log-return; theta from the time slopes of
+ * the same strip's coefficients (see `prepareCos`).
  */
 import { blackScholesGreeks } from './black';
 import { modelSpec, type ModelSpec } from './characteristic';
 import { cosStrip, prepareCos, type CosSettings, DEFAULT_COS_SETTINGS } from './cos';
 import { normalisedImpliedSigma } from './implied-vol';
-import { discountFactor, forwardPrice } from '../core/market';
+import { discountFactor, forwardPrice, marketLogSlopes } from '../core/market';
 import { normCdf } from './normal';
 import { isBlackScholes, parameterValue } from '../core/models';
-import { specFrom } from '../core/model-spec';
 import type { Market, Model, OptionSpec } from '../core/types';
 
 export interface OptionResult {
@@ -41,6 +41,8 @@ export interface StripValues {
   put: Float64Array;
   cdf: Float64Array;
   density: Float64Array;
+  /** ∂/∂T of call and put per unit forward at fixed ln(K/F), when asked for */
+  timeSlope: Float64Array | null;
 }
 
 /** Prices one expiry's strikes (as log-moneyness ln(K/F)) per unit forward. */
@@ -50,6 +52,7 @@ export function priceStrip(
   expiry: number,
   logMoneyness: ArrayLike<number>,
   settings: CosSettings = DEFAULT_COS_SETTINGS,
+  withTimeSlope = false,
 ): StripValues {
   const n = logMoneyness.length;
   const out: StripValues = {
@@ -59,9 +62,10 @@ export function priceStrip(
     put: new Float64Array(n),
     cdf: new Float64Array(n),
     density: new Float64Array(n),
+    timeSlope: withTimeSlope ? new Float64Array(n) : null,
   };
-  const prep = prepareCos(spec, expiry, settings);
-  cosStrip(prep, logMoneyness, out.call, out.put, out.cdf, out.density);
+  const prep = prepareCos(spec, expiry, settings, withTimeSlope);
+  cosStrip(prep, logMoneyness, out.call, out.put, out.cdf, out.density, out.timeSlope ?? undefined);
   return out;
 }
 
@@ -93,18 +97,20 @@ export function priceOptions(
   for (const [expiry, indices] of byExpiry) {
     const strikes = indices.map((i) => options[i].strike);
     const values = valueAt(spec, model, market, expiry, strikes, settings);
-    const h = Math.min(1e-3 * expiry, 1 / 365);
-    // calendar theta: dated risk stays on its dates, so it moves with the valuation
-    const later = valueAt(specFrom(spec, -h), model, market, expiry + h, strikes, settings);
-    const earlier = valueAt(specFrom(spec, h), model, market, expiry - h, strikes, settings);
+    const slopes = marketLogSlopes(market, expiry);
     indices.forEach((optionIndex, j) => {
       const o = options[optionIndex];
       const isCall = o.type === 'call';
       const v = values[j];
       const price = isCall ? v.call : v.put;
-      const theta =
-        -((isCall ? later[j].call : later[j].put) - (isCall ? earlier[j].call : earlier[j].put)) /
-        (2 * h);
+      // calendar theta −dV/dT of V = D·F·P(k, T), k = ln(K/F): the price's own time slope
+      // at fixed k, the strike's drift in k as F moves, and the discounted forward's drift
+      const ek = o.strike / v.forward;
+      const slopeInK = isCall ? -ek * (1 - v.cdf) : ek * v.cdf;
+      const theta = -(
+        price * (slopes.discount + slopes.forward) +
+        v.discount * v.forward * (v.timeSlope - slopeInK * slopes.forward)
+      );
       const deltaK = isCall ? -v.discount * (1 - v.cdf) : v.discount * v.cdf;
       const delta = (price - o.strike * deltaK) / market.spot;
       const gamma = (v.discount * o.strike * v.density) / (market.spot * market.spot);
@@ -135,6 +141,8 @@ interface StrikeValue {
   put: number;
   cdf: number;
   density: number;
+  /** ∂/∂T of the undiscounted price per unit forward at fixed ln(K/F) */
+  timeSlope: number;
   forward: number;
   discount: number;
   impliedVol: number | null;
@@ -172,6 +180,10 @@ function valueAt(
         // Y ~ N(−s²/2, s²): P(Y ≤ k) = Φ(−d2), density φ(d2)/s
         cdf: normCdf(-d2),
         density: Math.exp(-0.5 * d2 * d2) / (Math.sqrt(2 * Math.PI) * s),
+        // ∂P/∂s = φ(d1) per unit forward, ∂s/∂T = σ²/(2s)
+        timeSlope:
+          (Math.exp(-0.5 * (d2 + s) * (d2 + s)) / Math.sqrt(2 * Math.PI)) *
+          ((sigma * sigma) / (2 * s)),
         forward: F,
         discount: df,
         impliedVol: impliedVolFromOtm((k < 0 ? p.price : c.price) / (df * F), k, expiry),
@@ -179,12 +191,13 @@ function valueAt(
     });
   }
   const ks = strikes.map((K) => Math.log(K / F));
-  const v = priceStrip(spec, market, expiry, ks, settings);
+  const v = priceStrip(spec, market, expiry, ks, settings, true);
   return strikes.map((_, j) => ({
     call: df * F * v.call[j],
     put: df * F * v.put[j],
     cdf: v.cdf[j],
     density: v.density[j],
+    timeSlope: v.timeSlope ? v.timeSlope[j] : 0,
     forward: F,
     discount: df,
     impliedVol: impliedVolFromOtm(ks[j] < 0 ? v.put[j] : v.call[j], ks[j], expiry),

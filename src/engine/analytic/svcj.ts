@@ -145,6 +145,34 @@ export function priceVarianceTerm(
   };
 }
 
+/** λ(0)·(E[e^{wZ_S + D·Z_V}] − 1 − w·m), the jump share of ln φ's time slope, at one w and D. */
+export type PriceVarianceRate = (
+  a: number,
+  b: number,
+  Dr: number,
+  Di: number,
+  out: Float64Array,
+) => void;
+
+export function priceVarianceRate(jl: PriceVariance, lambdaNow: number): PriceVarianceRate {
+  const { jumpMean: muS, jumpStdev: sS, varianceJumpMean: muV, jumpCorrelation: rhoJ } = jl;
+  const hv = 0.5 * sS * sS;
+  const kbar = Math.exp(muS + hv) / (1 - rhoJ * muV) - 1;
+  return (a, b, Dr, Di, out) => {
+    // e^{wμS + ½w²σS²} / (1 − wρJμV − μV·D)
+    const tr0 = muS * a + hv * (a * a - b * b);
+    const ti0 = muS * b + hv * 2 * a * b;
+    const tm = Math.exp(tr0);
+    const thr = tm * Math.cos(ti0);
+    const thi = tm * Math.sin(ti0);
+    const pr = 1 - a * rhoJ * muV - muV * Dr;
+    const pi = -b * rhoJ * muV - muV * Di;
+    const pm = pr * pr + pi * pi;
+    out[0] = lambdaNow * ((thr * pr + thi * pi) / pm - 1 - a * kbar);
+    out[1] = lambdaNow * ((thi * pr - thr * pi) / pm - b * kbar);
+  };
+}
+
 /** The intensity schedule over [0, T] as stretches of time to go τ = T − s, each at one rate. */
 export function intensitySegments(
   base: number,

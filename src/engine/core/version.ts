@@ -1,2 +1,2 @@
 /** Bumped whenever a change can alter any computed number; cached results carry it. */
-export const ENGINE_VERSION = '0.1.0';
+export const ENGINE_VERSION = '0.2.0';

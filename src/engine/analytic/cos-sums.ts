@@ -1,0 +1,166 @@
+/**
+ * The strike-dependent cosine sums of a COS strip (see `cos.ts`), the hot loop of every price.
+ */
+import type { CosExpiry, CosSlope } from './cos';
+
+/**
+ * The strike-dependent sums of the COS series for angles Δ_j = π(k_j − a)/(b − a):
+ * S_j = Σ_{n≥1} (A_n/u_n) sin nΔ_j, C_j = Σ_{n≥1} A_n cos nΔ_j and
+ * R_j = Σ_{n≥1} A_n (cos nΔ_j + u_n sin nΔ_j)/(1 + u_n²). cos/sin of nΔ come from a rotation
+ * recurrence; four strikes advance together so their dependency chains overlap in the CPU.
+ */
+export function stripSums(
+  prep: CosExpiry,
+  deltas: Float64Array,
+  count: number,
+  S: Float64Array,
+  C: Float64Array,
+  R: Float64Array,
+): void {
+  const { terms, u, coef, coefOverU, coefOverU2 } = prep;
+  let j = 0;
+  for (; j + 4 <= count; j += 4) {
+    const cd0 = Math.cos(deltas[j]),
+      sd0 = Math.sin(deltas[j]);
+    const cd1 = Math.cos(deltas[j + 1]),
+      sd1 = Math.sin(deltas[j + 1]);
+    const cd2 = Math.cos(deltas[j + 2]),
+      sd2 = Math.sin(deltas[j + 2]);
+    const cd3 = Math.cos(deltas[j + 3]),
+      sd3 = Math.sin(deltas[j + 3]);
+    let c0 = 1,
+      s0 = 0,
+      c1 = 1,
+      s1 = 0,
+      c2 = 1,
+      s2 = 0,
+      c3 = 1,
+      s3 = 0;
+    let S0 = 0,
+      S1 = 0,
+      S2 = 0,
+      S3 = 0,
+      C0 = 0,
+      C1 = 0,
+      C2 = 0,
+      C3 = 0,
+      R0 = 0,
+      R1 = 0,
+      R2 = 0,
+      R3 = 0;
+    for (let n = 1; n < terms; n++) {
+      const an = coef[n],
+        au = coefOverU[n],
+        a2 = coefOverU2[n],
+        un = u[n];
+      let t = c0 * cd0 - s0 * sd0;
+      s0 = s0 * cd0 + c0 * sd0;
+      c0 = t;
+      t = c1 * cd1 - s1 * sd1;
+      s1 = s1 * cd1 + c1 * sd1;
+      c1 = t;
+      t = c2 * cd2 - s2 * sd2;
+      s2 = s2 * cd2 + c2 * sd2;
+      c2 = t;
+      t = c3 * cd3 - s3 * sd3;
+      s3 = s3 * cd3 + c3 * sd3;
+      c3 = t;
+      S0 += au * s0;
+      S1 += au * s1;
+      S2 += au * s2;
+      S3 += au * s3;
+      C0 += an * c0;
+      C1 += an * c1;
+      C2 += an * c2;
+      C3 += an * c3;
+      R0 += a2 * (c0 + un * s0);
+      R1 += a2 * (c1 + un * s1);
+      R2 += a2 * (c2 + un * s2);
+      R3 += a2 * (c3 + un * s3);
+    }
+    S[j] = S0;
+    S[j + 1] = S1;
+    S[j + 2] = S2;
+    S[j + 3] = S3;
+    C[j] = C0;
+    C[j + 1] = C1;
+    C[j + 2] = C2;
+    C[j + 3] = C3;
+    R[j] = R0;
+    R[j + 1] = R1;
+    R[j + 2] = R2;
+    R[j + 3] = R3;
+  }
+  for (; j < count; j++) {
+    const cd = Math.cos(deltas[j]);
+    const sd = Math.sin(deltas[j]);
+    let cn = 1,
+      sn = 0,
+      sS = 0,
+      sC = 0,
+      sR = 0;
+    for (let n = 1; n < terms; n++) {
+      const t = cn * cd - sn * sd;
+      sn = sn * cd + cn * sd;
+      cn = t;
+      sS += coefOverU[n] * sn;
+      sC += coef[n] * cn;
+      sR += coefOverU2[n] * (cn + u[n] * sn);
+    }
+    S[j] = sS;
+    C[j] = sC;
+    R[j] = sR;
+  }
+}
+
+/**
+ * The same sums S_j and R_j for the coefficients' time slopes, for a calendar theta from the
+ * strip's own angles; two strikes advance together.
+ */
+export function slopeSums(
+  prep: CosExpiry,
+  slope: CosSlope,
+  deltas: Float64Array,
+  count: number,
+  S: Float64Array,
+  R: Float64Array,
+): void {
+  const { terms, u } = prep;
+  const { coefOverU, coefOverU2 } = slope;
+  for (let j = 0; j < count; j += 2) {
+    const pair = j + 1 < count;
+    const cd0 = Math.cos(deltas[j]),
+      sd0 = Math.sin(deltas[j]);
+    const cd1 = pair ? Math.cos(deltas[j + 1]) : 1,
+      sd1 = pair ? Math.sin(deltas[j + 1]) : 0;
+    let c0 = 1,
+      s0 = 0,
+      c1 = 1,
+      s1 = 0,
+      S0 = 0,
+      S1 = 0,
+      R0 = 0,
+      R1 = 0;
+    for (let n = 1; n < terms; n++) {
+      const au = coefOverU[n],
+        a2 = coefOverU2[n],
+        un = u[n];
+      let t = c0 * cd0 - s0 * sd0;
+      s0 = s0 * cd0 + c0 * sd0;
+      c0 = t;
+      t = c1 * cd1 - s1 * sd1;
+      s1 = s1 * cd1 + c1 * sd1;
+      c1 = t;
+      S0 += au * s0;
+      S1 += au * s1;
+      R0 += a2 * (c0 + un * s0);
+      R1 += a2 * (c1 + un * s1);
+    }
+    S[j] = S0;
+    R[j] = R0;
+    if (pair) {
+      S[j + 1] = S1;
+      R[j + 1] = R1;
+    }
+  }
+}
