@@ -74,6 +74,11 @@ export function normalisedImpliedSigma(x: number, beta: number): number {
     } else {
       next = NaN;
     }
+    // converged: a step within rounding of s. Tested before the bracket, since s itself is one
+    // of the bracket's ends by now and a step of an ulp may not land strictly inside it
+    if (Number.isFinite(next) && Math.abs(next - s) <= 4e-16 * s) {
+      return next > lo && next < hi ? next : s;
+    }
     if (!(next > lo && next < hi) || !Number.isFinite(next)) {
       next = Number.isFinite(hi) ? (lo > 0 ? Math.sqrt(lo * hi) : 0.5 * hi) : Math.max(2 * s, 1);
     }
