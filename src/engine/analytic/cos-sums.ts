@@ -1,7 +1,7 @@
 /**
  * The strike-dependent cosine sums of a COS strip (see `cos.ts`), the hot loop of every price.
  */
-import type { CosExpiry, CosSlope } from './cos';
+import type { CosSeries, CosSlope } from './cos-series';
 
 /**
  * The strike-dependent sums of the COS series for angles Δ_j = π(k_j − a)/(b − a):
@@ -10,7 +10,7 @@ import type { CosExpiry, CosSlope } from './cos';
  * recurrence; four strikes advance together so their dependency chains overlap in the CPU.
  */
 export function stripSums(
-  prep: CosExpiry,
+  prep: CosSeries,
   deltas: Float64Array,
   count: number,
   S: Float64Array,
@@ -118,7 +118,7 @@ export function stripSums(
  * strip's own angles; two strikes advance together.
  */
 export function slopeSums(
-  prep: CosExpiry,
+  prep: CosSeries,
   slope: CosSlope,
   deltas: Float64Array,
   count: number,

@@ -12,6 +12,10 @@ import { cumulants, diffusionVariance } from './cumulants';
 import { expectedJumps } from '../core/model-spec';
 import { touches, twoPointOutcomes } from '../core/scheduled-moves';
 import { slopeSums, stripSums } from './cos-sums';
+import { cosSeries, type CosSeries } from './cos-series';
+import { mixtureParts, type MixturePart } from './cos-mixture';
+
+export type { CosSeries, CosSlope } from './cos-series';
 
 export interface CosSettings {
   /** truncation width in units of √(c2 + √c4) (Fang & Oosterlee section 5.1) */
@@ -29,40 +33,16 @@ export const DEFAULT_COS_SETTINGS: CosSettings = {
   maxTerms: 1 << 16,
 };
 
-export interface CosExpiry {
+/** One expiry's prepared series, or a Poisson mixture of narrower ones (see `cos-mixture.ts`). */
+export interface CosExpiry extends CosSeries {
   expiry: number;
-  a: number;
-  b: number;
-  terms: number;
-  /** u_n = nπ/(b − a) */
-  u: Float64Array;
-  /** A_n with the n = 0 term halved */
-  coef: Float64Array;
-  /** A_n / u_n (0 for n = 0) and A_n / (1 + u_n²), shared by every strike */
-  coefOverU: Float64Array;
-  coefOverU2: Float64Array;
-  /** Σ_{n≥1} A_n/(1 + u_n²) and Σ_{n≥1} (−1)^n A_n/(1 + u_n²), strike-independent */
-  sumOverU2Tail: number;
-  sumAltTail: number;
-  /** true when maxTerms was reached before the characteristic function decayed */
-  capped: boolean;
-  /** the coefficients' time slopes ∂A_n/∂τ on the same [a, b], when asked for */
-  slope: CosSlope | null;
   /** variance of Y (second cumulant) and of its diffusive part alone */
   variance: number;
   diffusionVariance: number;
+  /** when set, Y's law is Σ weight·part and the top-level series is empty */
+  parts: MixturePart[] | null;
 }
 
-/** ∂/∂τ of the series' coefficients and of their strike-independent sums (see `CosExpiry`). */
-export interface CosSlope {
-  coef: Float64Array;
-  coefOverU: Float64Array;
-  coefOverU2: Float64Array;
-  sumOverU2Tail: number;
-  sumAltTail: number;
-}
-
-const BLOCK = 64;
 /**
  * Above this upper bound the call coefficients carry e^b and cancel badly (Fang & Oosterlee
  * section 3.3), so calls are priced from puts by parity instead.
@@ -112,125 +92,50 @@ export function prepareCos(
   withSlope = false,
 ): CosExpiry {
   const { c1, c2, c4 } = cumulants(spec, T);
-  const half =
-    settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T) + eventExtent(spec, T);
+  const events = eventExtent(spec, T);
+  const half = settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T) + events;
+  const parts = mixtureParts(spec, T, settings, withSlope, events, half);
+  if (parts) {
+    return {
+      // the range a single series would take: where the law lives, for callers that grid it
+      a: c1 - half,
+      b: c1 + half,
+      terms: parts.reduce((sum, p) => sum + p.series.terms, 0),
+      u: new Float64Array(0),
+      coef: new Float64Array(0),
+      coefOverU: new Float64Array(0),
+      coefOverU2: new Float64Array(0),
+      sumOverU2Tail: 0,
+      sumAltTail: 0,
+      capped: parts.some((p) => p.series.capped),
+      slope: null,
+      mean: 1,
+      meanSlope: 0,
+      expiry: T,
+      variance: c2,
+      diffusionVariance: diffusionVariance(spec, T),
+      parts,
+    };
+  }
   const a = c1 - half;
   const b = c1 + half;
-  const step = Math.PI / (b - a);
-  let capacity = Math.max(settings.minTerms, 4 * BLOCK);
-  let wr: Float64Array = new Float64Array(capacity);
-  let wi: Float64Array = new Float64Array(capacity);
-  let re: Float64Array = new Float64Array(capacity);
-  let im: Float64Array = new Float64Array(capacity);
-  let slopeRe: Float64Array = new Float64Array(withSlope ? capacity : 0);
-  let slopeIm: Float64Array = new Float64Array(withSlope ? capacity : 0);
-  let n = 0;
-  let capped = false;
-  for (;;) {
-    if (n + BLOCK > capacity) {
-      capacity = Math.min(settings.maxTerms, capacity * 2);
-      if (n + BLOCK > capacity) {
-        capped = true;
-        break;
-      }
-      wr = grow(wr, capacity);
-      wi = grow(wi, capacity);
-      re = grow(re, capacity);
-      im = grow(im, capacity);
-      if (withSlope) {
-        slopeRe = grow(slopeRe, capacity);
-        slopeIm = grow(slopeIm, capacity);
-      }
-    }
-    for (let k = n; k < n + BLOCK; k++) wi[k] = k * step;
-    logCharacteristic(
-      spec,
-      T,
-      wr.subarray(n),
-      wi.subarray(n),
-      re.subarray(n),
-      im.subarray(n),
-      BLOCK,
-      withSlope ? { re: slopeRe.subarray(n), im: slopeIm.subarray(n) } : undefined,
-    );
-    let blockMax = -Infinity;
-    for (let k = n; k < n + BLOCK; k++) blockMax = Math.max(blockMax, re[k]);
-    // The payoff coefficients fall like 1/(1 + u²), so that is the weight a neglected
-    // characteristic-function value carries into a price (per unit forward).
-    const uStart = n * step;
-    n += BLOCK;
-    if (
-      n >= settings.minTerms &&
-      Math.exp(blockMax) / (1 + uStart * uStart) < settings.tailTolerance
-    )
-      break;
-  }
-  const u = new Float64Array(n);
-  const coef = new Float64Array(n);
-  const scale = 2 / (b - a);
-  for (let k = 0; k < n; k++) {
-    const uk = k * step;
-    u[k] = uk;
-    // Re[e^{lnφ} e^{−i u a}] = e^{Re lnφ} cos(Im lnφ − u a)
-    coef[k] = scale * Math.exp(re[k]) * Math.cos(im[k] - uk * a);
-  }
-  coef[0] *= 0.5;
-  let slope: CosSlope | null = null;
-  if (withSlope) {
-    const coefSlope = new Float64Array(n);
-    for (let k = 0; k < n; k++) {
-      // Re[φ·(s_r + i s_i)·e^{−iua}] = e^{Re lnφ}(s_r cos ϑ − s_i sin ϑ), ϑ = Im lnφ − u a
-      const angle = im[k] - u[k] * a;
-      coefSlope[k] =
-        scale * Math.exp(re[k]) * (slopeRe[k] * Math.cos(angle) - slopeIm[k] * Math.sin(angle));
-    }
-    coefSlope[0] *= 0.5;
-    slope = { coef: coefSlope, ...derivedSums(u, coefSlope) };
-  }
+  const series = cosSeries(a, b, settings, withSlope, (wr, wi, re, im, count, slope) =>
+    logCharacteristic(spec, T, wr, wi, re, im, count, slope),
+  );
   return {
+    ...series,
     expiry: T,
-    a,
-    b,
-    terms: n,
-    u,
-    coef,
-    ...derivedSums(u, coef),
-    capped,
-    slope,
     variance: c2,
     diffusionVariance: diffusionVariance(spec, T),
+    parts: null,
   };
-}
-
-/** A_n/u_n, A_n/(1 + u_n²) and their strike-independent sums, for one set of coefficients. */
-function derivedSums(u: Float64Array, coef: Float64Array) {
-  const n = coef.length;
-  const coefOverU = new Float64Array(n);
-  const coefOverU2 = new Float64Array(n);
-  for (let k = 0; k < n; k++) {
-    coefOverU[k] = k === 0 ? 0 : coef[k] / u[k];
-    coefOverU2[k] = coef[k] / (1 + u[k] * u[k]);
-  }
-  let sumOverU2Tail = 0;
-  let sumAltTail = 0;
-  for (let k = 1; k < n; k++) {
-    sumOverU2Tail += coefOverU2[k];
-    sumAltTail += k % 2 === 1 ? -coefOverU2[k] : coefOverU2[k];
-  }
-  return { coefOverU, coefOverU2, sumOverU2Tail, sumAltTail };
-}
-
-function grow(arr: Float64Array, size: number): Float64Array {
-  const out = new Float64Array(size);
-  out.set(arr);
-  return out;
 }
 
 /**
  * Undiscounted prices per unit forward, E[(e^Y − e^k)^+] (call) and E[(e^k − e^Y)^+] (put), with
  * the CDF and density of Y at k, for each log-moneyness k = ln(K/F). Writes into the arrays given.
  * With `timeSlope` (and a prep made with slopes) also ∂/∂τ of those prices at fixed k, the same
- * for the call and the put since parity holds at every τ.
+ * for the call and the put since parity holds at every τ (E[e^Y] = 1).
  */
 export function cosStrip(
   prep: CosExpiry,
@@ -241,7 +146,57 @@ export function cosStrip(
   density: Float64Array,
   timeSlope?: Float64Array,
 ): void {
-  const { a, b } = prep;
+  if (prep.parts) mixtureStrip(prep.parts, logMoneyness, call, put, cdf, density, timeSlope);
+  else seriesStrip(prep, logMoneyness, call, put, cdf, density, timeSlope);
+}
+
+/** `cosStrip` for a Poisson mixture: each part's strip, weighted; the weights move with τ too. */
+function mixtureStrip(
+  parts: readonly MixturePart[],
+  logMoneyness: ArrayLike<number>,
+  call: Float64Array,
+  put: Float64Array,
+  cdf: Float64Array,
+  density: Float64Array,
+  timeSlope?: Float64Array,
+): void {
+  const n = logMoneyness.length;
+  const c = new Float64Array(n);
+  const p = new Float64Array(n);
+  const f = new Float64Array(n);
+  const d = new Float64Array(n);
+  const s = timeSlope ? new Float64Array(n) : undefined;
+  for (const out of [call, put, cdf, density, timeSlope]) out?.fill(0);
+  for (const part of parts) {
+    seriesStrip(part.series, logMoneyness, c, p, f, d, s);
+    const w = part.weight;
+    for (let j = 0; j < n; j++) {
+      call[j] += w * c[j];
+      put[j] += w * p[j];
+      cdf[j] += w * f[j];
+      density[j] += w * d[j];
+      if (timeSlope && s) {
+        // the put's slope; the call's is the same since Σ weight·mean = 1 at every τ
+        timeSlope[j] += w * s[j] + part.weightSlope * p[j];
+      }
+    }
+  }
+}
+
+/**
+ * `cosStrip` for one series, whose law need not be a martingale's: parity and the settled
+ * strikes use its E[e^Y] (`mean`), and `timeSlope` gets the put's slope.
+ */
+export function seriesStrip(
+  prep: CosSeries,
+  logMoneyness: ArrayLike<number>,
+  call: Float64Array,
+  put: Float64Array,
+  cdf: Float64Array,
+  density: Float64Array,
+  timeSlope?: Float64Array,
+): void {
+  const { a, b, mean } = prep;
   const a0 = prep.coef[0];
   const ea = Math.exp(a);
   const eb = Math.exp(b);
@@ -253,16 +208,16 @@ export function cosStrip(
     const ek = Math.exp(k);
     if (k <= a) {
       put[j] = 0;
-      call[j] = 1 - ek;
+      call[j] = mean - ek;
       cdf[j] = 0;
       density[j] = 0;
       if (timeSlope) timeSlope[j] = 0;
     } else if (k >= b) {
       call[j] = 0;
-      put[j] = ek - 1;
+      put[j] = ek - mean;
       cdf[j] = 1;
       density[j] = 0;
-      if (timeSlope) timeSlope[j] = 0;
+      if (timeSlope) timeSlope[j] = -prep.meanSlope;
     } else inside.push(j);
   }
   const m = inside.length;
@@ -288,7 +243,7 @@ export function cosStrip(
       // put on [a, k]: V_n = e^k ψ_n(a, k) − χ_n(a, k)
       const p = ek * sumPsi - sumChi;
       put[j] = Math.max(p, 0);
-      call[j] = put[j] + 1 - ek;
+      call[j] = put[j] + mean - ek;
       if (slope && timeSlope) {
         const d0 = slope.coef[0];
         timeSlope[j] =
@@ -300,11 +255,14 @@ export function cosStrip(
       const psiKB = a0 * (b - k) - S[i];
       const c = sumAlt - sumChiK - ek * psiKB;
       call[j] = Math.max(c, 0);
-      put[j] = call[j] - 1 + ek;
+      put[j] = call[j] - mean + ek;
       if (slope && timeSlope) {
         const d0 = slope.coef[0];
         timeSlope[j] =
-          eb * (d0 + slope.sumAltTail) - ek * (d0 + dR[i]) - ek * (d0 * (b - k) - dS[i]);
+          eb * (d0 + slope.sumAltTail) -
+          ek * (d0 + dR[i]) -
+          ek * (d0 * (b - k) - dS[i]) -
+          prep.meanSlope;
       }
     }
     cdf[j] = Math.min(1, Math.max(0, sumPsi));
@@ -314,6 +272,12 @@ export function cosStrip(
 
 /** Density of Y at y from the cosine series, f(y) = Σ' A_n cos(u_n (y − a)). */
 export function cosDensity(prep: CosExpiry, y: number): number {
+  if (prep.parts)
+    return prep.parts.reduce((sum, p) => sum + p.weight * seriesDensity(p.series, y), 0);
+  return seriesDensity(prep, y);
+}
+
+function seriesDensity(prep: CosSeries, y: number): number {
   if (y <= prep.a || y >= prep.b) return 0;
   let sum = 0;
   for (let n = 0; n < prep.terms; n++) sum += prep.coef[n] * Math.cos(prep.u[n] * (y - prep.a));
