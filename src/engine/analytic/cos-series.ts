@@ -52,6 +52,20 @@ export interface CosSeries {
 const BLOCK = 64;
 
 /**
+ * Working arrays for the characteristic-function values, kept between calls (each engine runs
+ * in one thread) and grown when a series needs more terms; only the coefficients are allocated.
+ */
+const SCRATCH_START = 1024;
+let scratch: Record<'wr' | 'wi' | 're' | 'im' | 'slopeRe' | 'slopeIm', Float64Array> = {
+  wr: new Float64Array(SCRATCH_START),
+  wi: new Float64Array(SCRATCH_START),
+  re: new Float64Array(SCRATCH_START),
+  im: new Float64Array(SCRATCH_START),
+  slopeRe: new Float64Array(SCRATCH_START),
+  slopeIm: new Float64Array(SCRATCH_START),
+};
+
+/**
  * The series of a law on [a, b]. With `withSlope`, the coefficients' time slopes come from the
  * same characteristic-function values (∂A_n/∂τ = (2/(b − a)) Re[φ(u_n)·∂τ ln φ(u_n)·e^{−i u_n a}],
  * the range held), so a calendar theta needs no second or third strip.
@@ -65,30 +79,25 @@ export function cosSeries(
   block = BLOCK,
 ): CosSeries {
   const step = Math.PI / (b - a);
-  let capacity = Math.max(settings.minTerms, 4 * block);
-  let wr: Float64Array = new Float64Array(capacity);
-  let wi: Float64Array = new Float64Array(capacity);
-  let re: Float64Array = new Float64Array(capacity);
-  let im: Float64Array = new Float64Array(capacity);
-  let slopeRe: Float64Array = new Float64Array(withSlope ? capacity : 0);
-  let slopeIm: Float64Array = new Float64Array(withSlope ? capacity : 0);
+  let capacity = Math.min(settings.maxTerms, scratch.wr.length);
+  let { wr, wi, re, im, slopeRe, slopeIm } = scratch;
+  wr.fill(0);
   let n = 0;
   let capped = false;
   for (;;) {
     if (n + block > capacity) {
-      capacity = Math.min(settings.maxTerms, capacity * 2);
-      if (n + block > capacity) {
+      if (capacity >= settings.maxTerms) {
         capped = true;
         break;
       }
+      capacity = Math.min(settings.maxTerms, capacity * 2);
       wr = grow(wr, capacity);
       wi = grow(wi, capacity);
       re = grow(re, capacity);
       im = grow(im, capacity);
-      if (withSlope) {
-        slopeRe = grow(slopeRe, capacity);
-        slopeIm = grow(slopeIm, capacity);
-      }
+      slopeRe = grow(slopeRe, capacity);
+      slopeIm = grow(slopeIm, capacity);
+      scratch = { wr, wi, re, im, slopeRe, slopeIm };
     }
     for (let k = n; k < n + block; k++) wi[k] = k * step;
     logCf(
@@ -113,23 +122,23 @@ export function cosSeries(
   }
   const u = new Float64Array(n);
   const coef = new Float64Array(n);
+  const coefSlope = withSlope ? new Float64Array(n) : null;
   const scale = 2 / (b - a);
   for (let k = 0; k < n; k++) {
     const uk = k * step;
     u[k] = uk;
-    // Re[e^{lnφ} e^{−i u a}] = e^{Re lnφ} cos(Im lnφ − u a)
-    coef[k] = scale * Math.exp(re[k]) * Math.cos(im[k] - uk * a);
+    // Re[e^{lnφ} e^{−i u a}] = e^{Re lnφ} cos ϑ, ϑ = Im lnφ − u a
+    const modulus = Math.exp(re[k]);
+    const angle = im[k] - uk * a;
+    const cosine = Math.cos(angle);
+    coef[k] = scale * modulus * cosine;
+    // Re[φ·(s_r + i s_i)·e^{−iua}] = e^{Re lnφ}(s_r cos ϑ − s_i sin ϑ)
+    if (coefSlope)
+      coefSlope[k] = scale * modulus * (slopeRe[k] * cosine - slopeIm[k] * Math.sin(angle));
   }
   coef[0] *= 0.5;
   let slope: CosSlope | null = null;
-  if (withSlope) {
-    const coefSlope = new Float64Array(n);
-    for (let k = 0; k < n; k++) {
-      // Re[φ·(s_r + i s_i)·e^{−iua}] = e^{Re lnφ}(s_r cos ϑ − s_i sin ϑ), ϑ = Im lnφ − u a
-      const angle = im[k] - u[k] * a;
-      coefSlope[k] =
-        scale * Math.exp(re[k]) * (slopeRe[k] * Math.cos(angle) - slopeIm[k] * Math.sin(angle));
-    }
+  if (coefSlope) {
     coefSlope[0] *= 0.5;
     slope = { coef: coefSlope, ...derivedSums(u, coefSlope) };
   }
@@ -166,6 +175,7 @@ function derivedSums(u: Float64Array, coef: Float64Array) {
 }
 
 function grow(arr: Float64Array, size: number): Float64Array {
+  if (arr.length >= size) return arr;
   const out = new Float64Array(size);
   out.set(arr);
   return out;
