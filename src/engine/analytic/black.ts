@@ -85,6 +85,16 @@ export function blackScholesGreeks(p: BlackInputs & { spot: number }): BlackGree
   const carry = (df * F) / spot; // e^{−qT}
   const delta = p.isCall ? carry * normCdf(d1) : -carry * normCdf(-d1);
   const gamma = (carry * normPdf(d1)) / (spot * s);
-  const vega = df * F * normPdf(d1) * sqrtT;
+  const vega = blackVega(p);
   return { price, delta, gamma, vega };
+}
+
+/** ∂V/∂σ of a discounted Black price, D·F·φ(d1)·√T (0 at zero vol or expiry). */
+export function blackVega(p: Omit<BlackInputs, 'isCall'>): number {
+  const { forward: F, strike: K, sigma, expiry: T, discount: df } = p;
+  const sqrtT = Math.sqrt(T);
+  const s = sigma * sqrtT;
+  if (!(s > 0)) return 0;
+  const d1 = Math.log(F / K) / s + 0.5 * s;
+  return df * F * normPdf(d1) * sqrtT;
 }

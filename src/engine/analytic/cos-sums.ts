@@ -114,19 +114,22 @@ export function stripSums(
 }
 
 /**
- * The same sums S_j and R_j for the coefficients' time slopes, for a calendar theta from the
- * strip's own angles; two strikes advance together.
+ * `stripSums` and, in the same pass over n, S_j and R_j for the coefficients' time slopes (for a
+ * calendar theta from the strip's own angles and rotations); two strikes advance together.
  */
-export function slopeSums(
+export function stripSumsWithSlope(
   prep: CosSeries,
   slope: CosSlope,
   deltas: Float64Array,
   count: number,
   S: Float64Array,
+  C: Float64Array,
   R: Float64Array,
+  dS: Float64Array,
+  dR: Float64Array,
 ): void {
-  const { terms, u } = prep;
-  const { coefOverU, coefOverU2 } = slope;
+  const { terms, u, coef, coefOverU, coefOverU2 } = prep;
+  const { coefOverU: slopeOverU, coefOverU2: slopeOverU2 } = slope;
   for (let j = 0; j < count; j += 2) {
     const pair = j + 1 < count;
     const cd0 = Math.cos(deltas[j]),
@@ -136,14 +139,23 @@ export function slopeSums(
     let c0 = 1,
       s0 = 0,
       c1 = 1,
-      s1 = 0,
-      S0 = 0,
+      s1 = 0;
+    let S0 = 0,
       S1 = 0,
+      C0 = 0,
+      C1 = 0,
       R0 = 0,
-      R1 = 0;
+      R1 = 0,
+      dS0 = 0,
+      dS1 = 0,
+      dR0 = 0,
+      dR1 = 0;
     for (let n = 1; n < terms; n++) {
-      const au = coefOverU[n],
+      const an = coef[n],
+        au = coefOverU[n],
         a2 = coefOverU2[n],
+        su = slopeOverU[n],
+        s2 = slopeOverU2[n],
         un = u[n];
       let t = c0 * cd0 - s0 * sd0;
       s0 = s0 * cd0 + c0 * sd0;
@@ -151,16 +163,30 @@ export function slopeSums(
       t = c1 * cd1 - s1 * sd1;
       s1 = s1 * cd1 + c1 * sd1;
       c1 = t;
+      const w0 = c0 + un * s0;
+      const w1 = c1 + un * s1;
       S0 += au * s0;
       S1 += au * s1;
-      R0 += a2 * (c0 + un * s0);
-      R1 += a2 * (c1 + un * s1);
+      C0 += an * c0;
+      C1 += an * c1;
+      R0 += a2 * w0;
+      R1 += a2 * w1;
+      dS0 += su * s0;
+      dS1 += su * s1;
+      dR0 += s2 * w0;
+      dR1 += s2 * w1;
     }
     S[j] = S0;
+    C[j] = C0;
     R[j] = R0;
+    dS[j] = dS0;
+    dR[j] = dR0;
     if (pair) {
       S[j + 1] = S1;
+      C[j + 1] = C1;
       R[j + 1] = R1;
+      dS[j + 1] = dS1;
+      dR[j + 1] = dR1;
     }
   }
 }

@@ -11,7 +11,7 @@ import { logCharacteristic, type ModelSpec } from './characteristic';
 import { cumulants, diffusionVariance } from './cumulants';
 import { expectedJumps } from '../core/model-spec';
 import { touches, twoPointOutcomes } from '../core/scheduled-moves';
-import { slopeSums, stripSums } from './cos-sums';
+import { stripSums, stripSumsWithSlope } from './cos-sums';
 import { cosSeries, type CosSeries } from './cos-series';
 import { mixtureParts, type MixturePart } from './cos-mixture';
 
@@ -226,12 +226,12 @@ export function seriesStrip(
   const S = new Float64Array(m);
   const C = new Float64Array(m);
   const R = new Float64Array(m);
-  stripSums(prep, deltas, m, S, C, R);
   const slope = timeSlope ? prep.slope : null;
   if (timeSlope && !slope) throw new Error('cosStrip: time slopes need prepareCos(..., true)');
   const dS = slope ? new Float64Array(m) : S;
   const dR = slope ? new Float64Array(m) : R;
-  if (slope) slopeSums(prep, slope, deltas, m, dS, dR);
+  if (slope) stripSumsWithSlope(prep, slope, deltas, m, S, C, R, dS, dR);
+  else stripSums(prep, deltas, m, S, C, R);
   for (let i = 0; i < m; i++) {
     const j = inside[i];
     const k = logMoneyness[j];

@@ -5,7 +5,7 @@
  * ∂²V/∂K² come from the COS CDF and density of the log-return; theta from the time slopes of
  * the same strip's coefficients (see `prepareCos`).
  */
-import { blackScholesGreeks } from './black';
+import { blackScholesGreeks, blackVega } from './black';
 import { modelSpec, type ModelSpec } from './characteristic';
 import { cosStrip, prepareCos, type CosSettings, DEFAULT_COS_SETTINGS } from './cos';
 import { normalisedImpliedSigma } from './implied-vol';
@@ -117,15 +117,13 @@ export function priceOptions(
       const vega =
         v.impliedVol === null
           ? 0
-          : blackScholesGreeks({
+          : blackVega({
               forward: v.forward,
               strike: o.strike,
               sigma: v.impliedVol,
               expiry,
               discount: v.discount,
-              isCall,
-              spot: market.spot,
-            }).vega;
+            });
       const result: OptionResult = { price, impliedVol: v.impliedVol, delta, gamma, vega, theta };
       if (v.impliedVol === null) {
         result.note = 'time value below 1e-12 of the forward: implied vol not defined';
