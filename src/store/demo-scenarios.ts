@@ -14,6 +14,7 @@ import {
 const grid = {
   expiries: TENORS.slice(0, 5).map((t) => t.years),
   moneyness: defaultMoneyness(),
+  strikeSpacing: 'standard-deviations' as const,
 };
 
 /** The invented index's market: named, so a book never adds its P&L to another underlying's. */

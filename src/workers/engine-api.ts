@@ -4,6 +4,7 @@ import type {
   SmileSurface,
   OptionResult,
   ParameterSensitivity,
+  StrikeSpacing,
 } from '../engine/analytic';
 import type { DemoChainRequest } from '../engine/fit';
 import type { Stress, FieldIssue, Market, Model, OptionSpec } from '../engine/core';
@@ -34,6 +35,8 @@ export interface SmileRequest {
   stress?: Partial<Stress>;
   expiries: number[];
   moneyness: number[];
+  /** the scenario grid's spacing: `moneyness` for every expiry unless set otherwise */
+  strikeSpacing?: StrikeSpacing;
   /** expiry at which to sample the log-return density (optional) */
   densityExpiry?: number;
   /** base vol for the implied event moves; the ATM vol before each move when absent */

@@ -7,6 +7,7 @@ import {
   smileSensitivities,
   logReturnDensity,
   smileSurface,
+  strikeGrids,
   termStructureExpiries,
   type SmileSurface,
 } from '../engine/analytic';
@@ -31,16 +32,25 @@ import type {
  * The last base surface and base density, kept while only the stress changes (a slider drag
  * recomputes the stressed side alone). The same computation either way: bit-identical.
  */
-const lastBase = { key: '', surface: null as SmileSurface | null };
+const lastBase = { key: '', surface: null as SmileSurface | null, grids: [] as number[][] };
 const lastDensity = { key: '', values: null as number[] | null };
 
-function baseSurface(req: SmileRequest): SmileSurface {
-  const key = JSON.stringify([req.market, req.model, req.expiries, req.moneyness]);
+/** The base surface and its strikes per expiry (the stressed side is drawn on the same ones). */
+function baseSurface(req: SmileRequest): { surface: SmileSurface; grids: number[][] } {
+  const key = JSON.stringify([
+    req.market,
+    req.model,
+    req.expiries,
+    req.moneyness,
+    req.strikeSpacing,
+  ]);
   if (key !== lastBase.key || !lastBase.surface) {
-    lastBase.surface = smileSurface(req.market, req.model, req.expiries, req.moneyness);
+    const spec = modelSpec(req.model);
+    lastBase.grids = strikeGrids(spec, req.expiries, req.moneyness, req.strikeSpacing);
+    lastBase.surface = smileSurface(req.market, req.model, req.expiries, lastBase.grids);
     lastBase.key = key;
   }
-  return lastBase.surface;
+  return { surface: lastBase.surface, grids: lastBase.grids };
 }
 
 function baseDensity(model: Model, expiry: number, points: number[]): number[] {
@@ -54,7 +64,7 @@ function baseDensity(model: Model, expiry: number, points: number[]): number[] {
 
 export function computeSmiles(req: SmileRequest): SmileResponse {
   const started = performance.now();
-  const base = baseSurface(req);
+  const { surface: base, grids } = baseSurface(req);
   let stressed = null;
   let stressIssues: SmileResponse['stressIssues'] = [];
   let stressedModel = null;
@@ -62,7 +72,7 @@ export function computeSmiles(req: SmileRequest): SmileResponse {
     const s = applyStress(req.market, req.model, req.stress ?? {});
     stressIssues = s.issues;
     if (s.issues.length === 0) {
-      stressed = smileSurface(s.market, s.model, req.expiries, req.moneyness);
+      stressed = smileSurface(s.market, s.model, req.expiries, grids);
       stressedModel = s.model;
     }
   }

@@ -10,4 +10,5 @@ export * from './normal';
 export * from './pricing';
 export * from './sensitivity';
 export * from './smile';
+export * from './strike-grid';
 export * from './strip-interpolation';

@@ -128,14 +128,24 @@ export function smileSlice(
   };
 }
 
+/**
+ * Smiles at each expiry, on one ln(K/F) list shared by all of them or on one list per expiry
+ * (see `strikeGrids`).
+ */
 export function smileSurface(
   market: Market,
   model: Model,
   expiries: readonly number[],
-  logMoneyness: readonly number[],
+  logMoneyness: readonly number[] | ReadonlyArray<readonly number[]>,
 ): SmileSurface {
   const spec = modelSpec(model);
-  return { slices: expiries.map((t) => smileSlice(spec, market, t, logMoneyness)) };
+  const perExpiry = (i: number): readonly number[] => {
+    const first = logMoneyness[0];
+    return typeof first === 'number' || first === undefined
+      ? (logMoneyness as readonly number[])
+      : (logMoneyness as ReadonlyArray<readonly number[]>)[i];
+  };
+  return { slices: expiries.map((t, i) => smileSlice(spec, market, t, perExpiry(i))) };
 }
 
 /** Density of the log-return ln(S_T/F) at the given points (COS series of the density). */

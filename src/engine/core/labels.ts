@@ -28,6 +28,7 @@ const FIELDS: Record<string, string> = {
   'model.jumpIntensitySchedule': 'Jump-intensity schedule',
   'grid.expiries': 'Expiries',
   'grid.moneyness': 'Strikes, ln(K/F)',
+  'grid.strikeSpacing': 'Strike spacing',
   runs: 'Saved runs',
 };
 

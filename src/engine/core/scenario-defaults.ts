@@ -41,7 +41,11 @@ export function newScenario(id: string, name: string, valuationDate: string): Sc
     market: { spot: 100, rate: 0.03, dividendYield: 0.01 },
     model: { ...DEFAULT_BATES },
     stress: { ...NO_STRESS },
-    grid: { expiries: TENORS.slice(0, 5).map((t) => t.years), moneyness: defaultMoneyness() },
+    grid: {
+      expiries: TENORS.slice(0, 5).map((t) => t.years),
+      moneyness: defaultMoneyness(),
+      strikeSpacing: 'standard-deviations',
+    },
     runs: [],
   };
 }

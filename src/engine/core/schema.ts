@@ -117,6 +117,16 @@ export const gridSchema = z.looseObject({
     .array(bounded(-5, 5), { error: 'must be a list of log-moneyness values' })
     .min(1, 'needs at least one point')
     .max(401, 'at most 401 points'),
+  /**
+   * How each expiry's strikes are placed: the `moneyness` list for every expiry (the default,
+   * and what documents without the field always had) or 41 points over ±4 ATM standard
+   * deviations of that expiry.
+   */
+  strikeSpacing: z
+    .enum(['log-moneyness', 'standard-deviations'], {
+      error: 'must be "log-moneyness" or "standard-deviations"',
+    })
+    .optional(),
 });
 
 export const scenarioSchema = z.looseObject({

@@ -10,7 +10,8 @@ interface Props {
   model: Model;
 }
 
-const PICK = [-0.2, -0.1, -0.05, 0, 0.05, 0.1, 0.2];
+/** Columns as fractions of the grid's half-width (on a ±0.3 grid: −0.2 … 0.2). */
+const PICK = [-2 / 3, -1 / 3, -1 / 6, 0, 1 / 6, 1 / 3, 2 / 3];
 
 /**
  * How much the implied vol moves, in vol points, for a step of each parameter a trader thinks
@@ -22,7 +23,9 @@ export const SensitivityTable = memo(function SensitivityTable({
   logMoneyness,
   model,
 }: Props) {
-  const columns = PICK.map((target) => {
+  const halfWidth = logMoneyness.reduce((m, k) => Math.max(m, Math.abs(k)), 0);
+  const columns = PICK.map((fraction) => {
+    const target = fraction * halfWidth;
     let best = 0;
     logMoneyness.forEach((k, i) => {
       if (Math.abs(k - target) < Math.abs(logMoneyness[best] - target)) best = i;

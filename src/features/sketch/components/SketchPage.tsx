@@ -4,6 +4,7 @@ import { CautionNote } from '../../../components/CautionNote';
 import { formatTenor } from '../../../components/format';
 import { DensityChart, type PointMass } from './DensityChart';
 import { ExpiryPicker } from './ExpiryPicker';
+import { StrikeSpacingChoice } from './StrikeSpacingChoice';
 import { ModelForm } from './ModelForm';
 import { AXIS_LABEL, SmileChart, type AxisMode } from './SmileChart';
 import { SmileTable } from './SmileTable';
@@ -206,6 +207,10 @@ export function SketchPage() {
           <ExpiryPicker
             expiries={expiries}
             onChange={(e) => update({ ...doc, grid: { ...doc.grid, expiries: e } })}
+          />
+          <StrikeSpacingChoice
+            value={doc.grid.strikeSpacing}
+            onChange={(v) => update({ ...doc, grid: { ...doc.grid, strikeSpacing: v } })}
           />
           <div role="radiogroup" aria-label="Horizontal axis" className="flex gap-1 text-sm">
             {(Object.keys(AXIS_LABEL) as AxisMode[]).map((m) => (

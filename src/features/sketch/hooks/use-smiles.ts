@@ -11,6 +11,7 @@ export function smileRequest(doc: ScenarioDocument, densityExpiry: number): Smil
     stress: doc.stress,
     expiries: doc.grid.expiries,
     moneyness: doc.grid.moneyness,
+    ...(doc.grid.strikeSpacing ? { strikeSpacing: doc.grid.strikeSpacing } : {}),
     densityExpiry,
     ...(typeof doc.eventBaseVol === 'number' ? { eventBaseVol: doc.eventBaseVol } : {}),
   };
