@@ -1,5 +1,7 @@
+import { memo } from 'react';
 /** The caution every pricing or risk view carries. */
-export function CautionNote() {
+// memo: a stress step re-renders the page, not this
+export const CautionNote = memo(function CautionNote() {
   return (
     <p
       role="note"
@@ -10,4 +12,4 @@ export function CautionNote() {
       model-risk policy and the rules that apply where you trade.
     </p>
   );
-}
+});

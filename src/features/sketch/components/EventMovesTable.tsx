@@ -1,3 +1,4 @@
+import { memo } from 'react';
 /**
  * What the smiles say about each scheduled move: its size in the model, the move the ATM term
  * structure prices for it (forward-variance arithmetic against a base vol), and which of the
@@ -25,7 +26,8 @@ function lawText(e: ScheduledMove): string {
   return `+${formatVol(e.up, 1)} % (${Math.round(100 * e.upProbability)} %) or ${formatVol(e.down, 1)} %`;
 }
 
-export function EventMovesTable({
+// memo: a stress step re-renders the page, not this
+export const EventMovesTable = memo(function EventMovesTable({
   valuationDate,
   events,
   estimates,
@@ -105,4 +107,4 @@ export function EventMovesTable({
       )}
     </div>
   );
-}
+});

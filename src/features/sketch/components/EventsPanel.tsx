@@ -3,7 +3,7 @@
  * a policy decision), each with its law. Dates are entered as calendar dates and stored as
  * years (ACT/365) from the valuation date.
  */
-import { useId } from 'react';
+import { useId, memo } from 'react';
 import { dateAfter, expiryYears, MAX_EVENTS, type ScheduledMove } from '../../../engine/core';
 import { NumberField } from './NumberField';
 
@@ -142,7 +142,13 @@ function MoveRow({
   );
 }
 
-export function EventsPanel({ valuationDate, events, errors, onChange }: Props) {
+// memo: a stress step re-renders the page, not this
+export const EventsPanel = memo(function EventsPanel({
+  valuationDate,
+  events,
+  errors,
+  onChange,
+}: Props) {
   const add = () => {
     const last = events.length ? Math.max(...events.map((e) => e.time)) : 0;
     const time = (Math.round(last * 365) + NEW_MOVE_DAYS) / 365;
@@ -185,4 +191,4 @@ export function EventsPanel({ valuationDate, events, errors, onChange }: Props) 
       </button>
     </fieldset>
   );
-}
+});

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, memo } from 'react';
 import { TENORS } from '../../../engine/core';
 import { formatTenor } from '../../../components/format';
 
@@ -9,7 +9,8 @@ interface Props {
 
 const same = (a: number, b: number) => Math.abs(a - b) < 1e-9;
 
-export function ExpiryPicker({ expiries, onChange }: Props) {
+// memo: a stress step re-renders the page, not this
+export const ExpiryPicker = memo(function ExpiryPicker({ expiries, onChange }: Props) {
   const [days, setDays] = useState('');
   const [error, setError] = useState<string | null>(null);
   const toggle = (t: number) => {
@@ -76,4 +77,4 @@ export function ExpiryPicker({ expiries, onChange }: Props) {
       </form>
     </div>
   );
-}
+});

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 /**
  * The jump-intensity schedule on Sketch: rows of "until this date, λ per year", then the model's
  * own intensity, drawn as a step line against time.
@@ -61,7 +62,8 @@ function ScheduleChart({ schedule, base }: { schedule: IntensitySchedule; base: 
   );
 }
 
-export function IntensitySchedulePanel({
+// memo: a stress step re-renders the page, not this
+export const IntensitySchedulePanel = memo(function IntensitySchedulePanel({
   valuationDate,
   schedule,
   baseIntensity,
@@ -135,4 +137,4 @@ export function IntensitySchedulePanel({
       </button>
     </fieldset>
   );
-}
+});

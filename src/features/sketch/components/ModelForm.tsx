@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { memo, type ReactNode } from 'react';
 import {
   convertModel,
   jumpSummary,
@@ -88,7 +88,14 @@ function JumpLawNote({ model }: { model: Model }) {
   );
 }
 
-export function ModelForm({ market, model, errors, onMarket, onModel }: Props) {
+// memo: a stress step re-renders the page, not this
+export const ModelForm = memo(function ModelForm({
+  market,
+  model,
+  errors,
+  onMarket,
+  onModel,
+}: Props) {
   const set = (key: string) => (v: number) => onModel({ ...model, [key]: v } as Model);
   return (
     <div className="space-y-4">
@@ -158,4 +165,4 @@ export function ModelForm({ market, model, errors, onMarket, onModel }: Props) {
       ))}
     </div>
   );
-}
+});

@@ -1,9 +1,11 @@
+import { memo } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { useNavigate } from 'react-router';
 import { localScenariosQuery } from '../../../store/hooks';
 
 /** Switches the Sketch page between the scenarios kept on this device. */
-export function ScenarioPicker({ currentId }: { currentId: string }) {
+// memo: a stress step re-renders the page, not this
+export const ScenarioPicker = memo(function ScenarioPicker({ currentId }: { currentId: string }) {
   const scenarios = useQuery(localScenariosQuery);
   const navigate = useNavigate();
   if (!scenarios.data || scenarios.data.length < 2) return null;
@@ -25,4 +27,4 @@ export function ScenarioPicker({ currentId }: { currentId: string }) {
       </select>
     </label>
   );
-}
+});

@@ -20,7 +20,6 @@ import {
   parameterValue,
   touches,
   twoPointOutcomes,
-  type Model,
   type OptionSpec,
   type ScheduledMove,
   type Stress,
@@ -33,6 +32,10 @@ import { SensitivityTable } from './SensitivityTable';
 import { smileRequest, useGreeks, useSensitivities, useSmiles } from '../hooks/use-smiles';
 import { useSettled } from '../hooks/use-settled';
 import { useSketchScenario, type SaveState } from '../hooks/use-sketch-scenario';
+import { useDocHandlers } from '../hooks/use-doc-handlers';
+
+const NO_TARGETS: TargetVol[] = [];
+const NO_SCHEDULE: [number, number][] = [];
 
 const SAVE_LABEL: Record<SaveState, string> = {
   loading: 'Opening…',
@@ -79,6 +82,7 @@ export function SketchPage() {
     [issues],
   );
   const valid = doc !== null && issues.length === 0;
+  const handlers = useDocHandlers(doc, update);
   const expiries = useMemo(() => doc?.grid.expiries ?? [], [doc]);
   const tableIndex = Math.min(tableExpiryIndex, Math.max(expiries.length - 1, 0));
   const request = useMemo(
@@ -137,14 +141,8 @@ export function SketchPage() {
     );
   if (!doc) return <p className="text-muted">Opening the scenario…</p>;
   const stress: Stress = { ...NO_STRESS, ...(doc.stress ?? {}) };
-  const targets = (Array.isArray(doc.targets) ? doc.targets : []) as TargetVol[];
+  const targets = (Array.isArray(doc.targets) ? doc.targets : NO_TARGETS) as TargetVol[];
   const eventBaseVol = typeof doc.eventBaseVol === 'number' ? doc.eventBaseVol : undefined;
-  const setModel = (patch: Partial<Record<'events' | 'jumpIntensitySchedule', unknown>>) => {
-    const model: Record<string, unknown> = { ...doc.model, ...patch };
-    for (const key of Object.keys(patch))
-      if (Array.isArray(model[key]) && (model[key] as unknown[]).length === 0) delete model[key];
-    update({ ...doc, model: model as Model });
-  };
 
   return (
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
@@ -154,7 +152,7 @@ export function SketchPage() {
           <input
             aria-label="Scenario name"
             value={doc.name}
-            onChange={(e) => update({ ...doc, name: e.target.value })}
+            onChange={(e) => handlers.name(e.target.value)}
             className={`w-full rounded border bg-panel px-2 py-1 text-lg font-semibold ${errors.name ? 'border-stressed' : 'border-transparent hover:border-rule'}`}
           />
           <p className="text-xs text-muted" data-testid="save-state" data-state={saveState}>
@@ -167,28 +165,30 @@ export function SketchPage() {
           market={doc.market}
           model={doc.model}
           errors={errors}
-          onMarket={(market) => update({ ...doc, market })}
-          onModel={(model) => update({ ...doc, model })}
+          onMarket={handlers.market}
+          onModel={handlers.model}
         />
         <EventsPanel
           valuationDate={doc.valuationDate}
           events={events}
           errors={errors}
-          onChange={(e: ScheduledMove[]) => setModel({ events: e })}
+          onChange={handlers.events}
         />
         {hasJumps(doc.model.kind) && (
           <IntensitySchedulePanel
             valuationDate={doc.valuationDate}
-            schedule={doc.model.jumpIntensitySchedule ?? []}
+            schedule={doc.model.jumpIntensitySchedule ?? NO_SCHEDULE}
             baseIntensity={parameterValue(doc.model, 'jumpIntensity')}
             errors={errors}
-            onChange={(sch) => setModel({ jumpIntensitySchedule: sch })}
+            onChange={handlers.schedule}
           />
         )}
         <TargetVols
-          doc={doc}
+          getDoc={handlers.getDoc}
+          expiries={expiries}
+          kind={doc.model.kind}
           targets={targets}
-          onTargets={(t) => update({ ...doc, targets: t })}
+          onTargets={handlers.targets}
           picked={picked}
           defaultK={defaultTargetK}
         />
@@ -197,21 +197,15 @@ export function SketchPage() {
           kind={doc.model.kind}
           hasEvents={events.length > 0}
           issues={smiles.data?.stressIssues ?? []}
-          onChange={(s) => update({ ...doc, stress: s })}
+          onChange={handlers.stress}
         />
       </aside>
 
       <section className="min-w-0 space-y-5" aria-label="Smiles">
         <CautionNote />
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <ExpiryPicker
-            expiries={expiries}
-            onChange={(e) => update({ ...doc, grid: { ...doc.grid, expiries: e } })}
-          />
-          <StrikeSpacingChoice
-            value={doc.grid.strikeSpacing}
-            onChange={(v) => update({ ...doc, grid: { ...doc.grid, strikeSpacing: v } })}
-          />
+          <ExpiryPicker expiries={expiries} onChange={handlers.expiries} />
+          <StrikeSpacingChoice value={doc.grid.strikeSpacing} onChange={handlers.spacing} />
           <div role="radiogroup" aria-label="Horizontal axis" className="flex gap-1 text-sm">
             {(Object.keys(AXIS_LABEL) as AxisMode[]).map((m) => (
               <button
@@ -272,11 +266,7 @@ export function SketchPage() {
               estimates={side!.eventMoves}
               expiries={expiries}
               baseVol={eventBaseVol}
-              onBaseVol={(v) => {
-                const next: Record<string, unknown> = { ...doc, eventBaseVol: v };
-                if (v === undefined) delete next.eventBaseVol;
-                update(next as typeof doc);
-              }}
+              onBaseVol={handlers.eventBaseVol}
             />
             <div className="space-y-2">
               <div className="flex items-center gap-3">

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import type { StrikeSpacing } from '../../../engine/analytic';
 
 interface Props {
@@ -22,7 +23,12 @@ const CHOICES: { value: StrikeSpacing; label: string; title: string }[] = [
 ];
 
 /** Where each panel's strikes sit: in the expiry's own standard deviations or one fixed list. */
-export function StrikeSpacingChoice({ value, onChange, disabled }: Props) {
+// memo: a stress step re-renders the page, not this
+export const StrikeSpacingChoice = memo(function StrikeSpacingChoice({
+  value,
+  onChange,
+  disabled,
+}: Props) {
   const current = value ?? 'log-moneyness';
   return (
     <div role="radiogroup" aria-label="Strikes" className="flex items-center gap-1 text-sm">
@@ -43,4 +49,4 @@ export function StrikeSpacingChoice({ value, onChange, disabled }: Props) {
       ))}
     </div>
   );
-}
+});

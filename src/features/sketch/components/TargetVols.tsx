@@ -1,5 +1,5 @@
-import { useEffect, useRef, useState } from 'react';
-import { type ScenarioDocument, hasJumps } from '../../../engine/core';
+import { memo, useEffect, useRef, useState } from 'react';
+import { type ModelKind, type ScenarioDocument, hasJumps } from '../../../engine/core';
 import type { TargetVol } from '../../../engine/fit';
 import { useTargetSolve } from '../hooks/use-target-solve';
 import { formatTenor } from '../../../components/format';
@@ -12,7 +12,10 @@ export interface PickedPoint {
 }
 
 interface Props {
-  doc: ScenarioDocument;
+  /** the scenario as it stands when a solve starts */
+  getDoc: () => ScenarioDocument;
+  expiries: readonly number[];
+  kind: ModelKind;
   targets: TargetVol[];
   onTargets: (targets: TargetVol[]) => void;
   /** the last point clicked on a smile panel */
@@ -22,8 +25,17 @@ interface Props {
 }
 
 /** Target vols placed on the smiles, and the solve that turns them into a new stressed scenario. */
-export function TargetVols({ doc, targets, onTargets, picked, defaultK }: Props) {
-  const [expiry, setExpiry] = useState(doc.grid.expiries[0]);
+// memo: a stress step re-renders the page, not this (its props hold still)
+export const TargetVols = memo(function TargetVols({
+  getDoc,
+  expiries,
+  kind,
+  targets,
+  onTargets,
+  picked,
+  defaultK,
+}: Props) {
+  const [expiry, setExpiry] = useState(expiries[0]);
   const [k, setK] = useState<string | null>(null);
   const kText = k ?? String(defaultK);
   const [vol, setVol] = useState('');
@@ -39,7 +51,7 @@ export function TargetVols({ doc, targets, onTargets, picked, defaultK }: Props)
   const [also, setAlso] = useState({ rho: false, v0: false });
   const solver = useTargetSolve();
   const { error, setError, progress } = solver;
-  const withJumps = hasJumps(doc.model.kind);
+  const withJumps = hasJumps(kind);
 
   const add = () => {
     const kk = Number(kText);
@@ -55,7 +67,7 @@ export function TargetVols({ doc, targets, onTargets, picked, defaultK }: Props)
     setVol('');
   };
 
-  const solve = () => void solver.solve(doc, targets, also);
+  const solve = () => void solver.solve(getDoc(), targets, also);
 
   return (
     <fieldset className="space-y-2 border-t border-rule pt-3" data-testid="target-vols">
@@ -75,7 +87,7 @@ export function TargetVols({ doc, targets, onTargets, picked, defaultK }: Props)
           onChange={(e) => setExpiry(Number(e.target.value))}
           className="w-full min-w-0 rounded border border-rule bg-panel px-1 py-1"
         >
-          {doc.grid.expiries.map((t) => (
+          {expiries.map((t) => (
             <option key={t} value={t}>
               {formatTenor(t)}
             </option>
@@ -166,4 +178,4 @@ export function TargetVols({ doc, targets, onTargets, picked, defaultK }: Props)
       )}
     </fieldset>
   );
-}
+});

@@ -10,6 +10,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useSearchParams } from 'react-router';
 import {
   canonicalJson,
+  type FieldIssue,
   type ScenarioDocument,
   parseScenario,
   newScenario,
@@ -19,6 +20,9 @@ import { appDb } from '../../../store/db';
 import { seedDemoScenariosOnce } from '../../../store/demo-seed';
 import { getScenario, listScenarios, saveScenario } from '../../../store/scenarios';
 import { nudgeSync } from '../../../sync/sync-loop';
+
+/** One array for "no issues", so what depends on it holds still while the document is valid. */
+const NO_ISSUES: FieldIssue[] = [];
 
 export type SaveState = 'loading' | 'saved' | 'saving' | 'unsaved' | 'invalid' | 'error';
 
@@ -114,9 +118,9 @@ export function useSketchScenario() {
   }, [flush]);
 
   const issues = useMemo(() => {
-    if (!doc) return [];
+    if (!doc) return NO_ISSUES;
     const r = parseScenario(doc);
-    return r.ok ? [] : r.issues;
+    return r.ok ? NO_ISSUES : r.issues;
   }, [doc]);
 
   const update = useCallback(
