@@ -269,17 +269,3 @@ export function seriesStrip(
     density[j] = Math.max(0, a0 + C[i]);
   }
 }
-
-/** Density of Y at y from the cosine series, f(y) = Σ' A_n cos(u_n (y − a)). */
-export function cosDensity(prep: CosExpiry, y: number): number {
-  if (prep.parts)
-    return prep.parts.reduce((sum, p) => sum + p.weight * seriesDensity(p.series, y), 0);
-  return seriesDensity(prep, y);
-}
-
-function seriesDensity(prep: CosSeries, y: number): number {
-  if (y <= prep.a || y >= prep.b) return 0;
-  let sum = 0;
-  for (let n = 0; n < prep.terms; n++) sum += prep.coef[n] * Math.cos(prep.u[n] * (y - prep.a));
-  return Math.max(0, sum);
-}

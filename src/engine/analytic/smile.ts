@@ -4,7 +4,7 @@
  * RR25 = σ(25Δ call) − σ(25Δ put), BF25 = (σ(25Δ call) + σ(25Δ put))/2 − σ(ATM).
  */
 import { modelSpec, type ModelSpec } from './characteristic';
-import { cosDensity, cosStrip, prepareCos, type CosExpiry, DEFAULT_COS_SETTINGS } from './cos';
+import { cosStrip, prepareCos, type CosExpiry, DEFAULT_COS_SETTINGS } from './cos';
 import { forwardPrice } from '../core/market';
 import { normCdf, normInv } from './normal';
 import { impliedVolFromOtm } from './pricing';
@@ -148,14 +148,21 @@ export function smileSurface(
   return { slices: expiries.map((t, i) => smileSlice(spec, market, t, perExpiry(i))) };
 }
 
-/** Density of the log-return ln(S_T/F) at the given points (COS series of the density). */
+/**
+ * Density of the log-return ln(S_T/F) at the given points: the COS strip's density output, whose
+ * cosines come from the strip's rotation recurrence rather than one cosine per term and point.
+ */
 export function logReturnDensity(
   model: Model,
   expiry: number,
   points: readonly number[],
 ): number[] {
   const prep = prepareCos(modelSpec(model), expiry, DEFAULT_COS_SETTINGS);
-  return points.map((y) => cosDensity(prep, y));
+  const n = points.length;
+  const scratch = () => new Float64Array(n);
+  const density = scratch();
+  cosStrip(prep, points, scratch(), scratch(), scratch(), density);
+  return Array.from(density);
 }
 
 /**
