@@ -82,8 +82,9 @@ export function logCharacteristic(
             T,
           )
         : null;
+    // it reads θ0 from the jump term, so it runs only beside it
     const jumpRate =
-      slope && jl.type === 'price-variance' && lambdaNow > 0
+      slope && withJumps && jl.type === 'price-variance' && lambdaNow > 0
         ? priceVarianceRate(jl, lambdaNow)
         : null;
     hestonLogCf(d, T, wr, wi, outRe, outIm, count, withJumps, slope, jumpRate);
@@ -161,7 +162,7 @@ function hestonLogCf(
   jumpRate: PriceVarianceRate | null = null,
 ): void {
   const { v0, kappa, theta, volOfVol: xi, rho } = h;
-  const extra = new Float64Array(2);
+  const extra = new Float64Array(4);
   const xi2 = xi * xi;
   const kt = kappa * theta;
   for (let j = 0; j < count; j++) {
@@ -277,7 +278,8 @@ function hestonLogCf(
       slope.re[j] = v0 * (-0.5 * qr - bdr + 0.5 * xi2 * d2r) + kt * Dr;
       slope.im[j] = v0 * (-0.5 * qi - bdi + 0.5 * xi2 * d2i) + kt * Di;
       if (jumpRate) {
-        jumpRate(a, b, Dr, Di, extra);
+        // the jump term just left θ0 in extra[2], extra[3]
+        jumpRate(a, b, Dr, Di, extra[2], extra[3], extra);
         slope.re[j] += extra[0];
         slope.im[j] += extra[1];
       }

@@ -42,7 +42,7 @@ function log1pOverZ(zr: number, zi: number, out: Float64Array): void {
 /**
  * The SVCJ jump term at one w, given the Heston quantities the Heston kernel has just computed
  * for that w (A = −q/(β + d), g, d and 1 − e^{−dT}), so nothing is computed twice; writes
- * (re, im) into `out`.
+ * (re, im) into `out`, and θ0 = e^{wμS + ½w²σS²} after them.
  */
 export type PriceVarianceTerm = (
   a: number,
@@ -142,29 +142,31 @@ export function priceVarianceTerm(
     }
     out[0] = sumR - a * kbar * totalIntensity;
     out[1] = sumI - b * kbar * totalIntensity;
+    // θ0, for the time slope's jump share (`PriceVarianceRate`)
+    out[2] = thr;
+    out[3] = thi;
   };
 }
 
-/** λ(0)·(E[e^{wZ_S + D·Z_V}] − 1 − w·m), the jump share of ln φ's time slope, at one w and D. */
+/**
+ * λ(0)·(E[e^{wZ_S + D·Z_V}] − 1 − w·m), the jump share of ln φ's time slope, at one w and D,
+ * given θ0 = e^{wμS + ½w²σS²} as the jump term has just computed it.
+ */
 export type PriceVarianceRate = (
   a: number,
   b: number,
   Dr: number,
   Di: number,
+  thr: number,
+  thi: number,
   out: Float64Array,
 ) => void;
 
 export function priceVarianceRate(jl: PriceVariance, lambdaNow: number): PriceVarianceRate {
   const { jumpMean: muS, jumpStdev: sS, varianceJumpMean: muV, jumpCorrelation: rhoJ } = jl;
-  const hv = 0.5 * sS * sS;
-  const kbar = Math.exp(muS + hv) / (1 - rhoJ * muV) - 1;
-  return (a, b, Dr, Di, out) => {
-    // e^{wμS + ½w²σS²} / (1 − wρJμV − μV·D)
-    const tr0 = muS * a + hv * (a * a - b * b);
-    const ti0 = muS * b + hv * 2 * a * b;
-    const tm = Math.exp(tr0);
-    const thr = tm * Math.cos(ti0);
-    const thi = tm * Math.sin(ti0);
+  const kbar = Math.exp(muS + 0.5 * sS * sS) / (1 - rhoJ * muV) - 1;
+  return (a, b, Dr, Di, thr, thi, out) => {
+    // θ0 / (1 − wρJμV − μV·D)
     const pr = 1 - a * rhoJ * muV - muV * Dr;
     const pi = -b * rhoJ * muV - muV * Di;
     const pm = pr * pr + pi * pi;
