@@ -14,7 +14,7 @@ import {
   prepareCos,
   priceOptions,
 } from '../../src/engine/analytic';
-import type { Market, Model, OptionSpec } from '../../src/engine/core';
+import { DEFAULT_BATES, type Market, type Model, type OptionSpec } from '../../src/engine/core';
 
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
 
@@ -84,17 +84,7 @@ describe('Poisson mixture for short expiries with jumps', () => {
   });
 
   it('agrees with the Lewis integral for Bates within 1e-10 × spot', () => {
-    const bates: Model = {
-      kind: 'bates',
-      v0: 0.04,
-      kappa: 1.5,
-      theta: 0.04,
-      volOfVol: 0.5,
-      rho: -0.7,
-      jumpIntensity: 0.5,
-      jumpMean: -0.1,
-      jumpStdev: 0.15,
-    };
+    const bates: Model = DEFAULT_BATES;
     expect(prepareCos(modelSpec(bates), 1 / 365).parts).not.toBeNull();
     for (const days of [1, 2]) {
       const options = shortStrip(days);

@@ -27,3 +27,19 @@ export function cosPrice(
 }
 
 export { lewisPrice };
+
+/** One parameter set per model family, shared by the tests that sweep every kind. */
+export const CASE_HESTON = { v0: 0.04, kappa: 1.5, theta: 0.05, volOfVol: 0.6, rho: -0.7 };
+export const MODEL_CASES: Record<'heston' | 'merton' | 'bates' | 'heston-kou', Model> = {
+  heston: { kind: 'heston', ...CASE_HESTON },
+  merton: { kind: 'merton', sigma: 0.18, jumpIntensity: 0.8, jumpMean: -0.08, jumpStdev: 0.12 },
+  bates: { kind: 'bates', ...CASE_HESTON, jumpIntensity: 0.5, jumpMean: -0.1, jumpStdev: 0.15 },
+  'heston-kou': {
+    kind: 'heston-kou',
+    ...CASE_HESTON,
+    jumpIntensity: 1,
+    upProbability: 0.3,
+    upMean: 0.04,
+    downMean: 0.09,
+  },
+};

@@ -1,22 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { impliedVol, lewisPrice, priceOptions } from '../../src/engine/analytic';
 import { discountFactor, forwardPrice, type Market, type Model } from '../../src/engine/core';
+import { CASE_HESTON, MODEL_CASES } from './helpers';
 
 // The engine's implied vols against vols implied from the independent Lewis-integral prices,
 // for every model from 1 day to 10 years, including parameters at their limits.
-const heston = { v0: 0.04, kappa: 1.5, theta: 0.05, volOfVol: 0.6, rho: -0.7 };
+const heston = CASE_HESTON;
 const MODELS: Record<string, Model> = {
-  heston: { kind: 'heston', ...heston },
-  merton: { kind: 'merton', sigma: 0.18, jumpIntensity: 0.8, jumpMean: -0.08, jumpStdev: 0.12 },
-  bates: { kind: 'bates', ...heston, jumpIntensity: 0.5, jumpMean: -0.1, jumpStdev: 0.15 },
-  'heston-kou': {
-    kind: 'heston-kou',
-    ...heston,
-    jumpIntensity: 1,
-    upProbability: 0.3,
-    upMean: 0.04,
-    downMean: 0.09,
-  },
+  ...MODEL_CASES,
   'bates, vanishing vol-of-vol': {
     kind: 'bates',
     ...heston,

@@ -8,21 +8,12 @@ import { describe, expect, it } from 'vitest';
 import { modelSpec, priceOptions, priceStrip } from '../../src/engine/analytic';
 import { specFrom } from '../../src/engine/core/model-spec';
 import type { Market, Model, OptionSpec } from '../../src/engine/core';
+import { CASE_HESTON, MODEL_CASES } from './helpers';
 
-const heston = { v0: 0.04, kappa: 1.5, theta: 0.05, volOfVol: 0.6, rho: -0.7 };
+const heston = CASE_HESTON;
 const MODELS: Record<string, Model> = {
   'black-scholes': { kind: 'black-scholes', sigma: 0.22 },
-  heston: { kind: 'heston', ...heston },
-  merton: { kind: 'merton', sigma: 0.18, jumpIntensity: 0.8, jumpMean: -0.08, jumpStdev: 0.12 },
-  bates: { kind: 'bates', ...heston, jumpIntensity: 0.5, jumpMean: -0.1, jumpStdev: 0.15 },
-  'heston-kou': {
-    kind: 'heston-kou',
-    ...heston,
-    jumpIntensity: 1,
-    upProbability: 0.3,
-    upMean: 0.04,
-    downMean: 0.09,
-  },
+  ...MODEL_CASES,
   svcj: {
     kind: 'svcj',
     ...heston,
