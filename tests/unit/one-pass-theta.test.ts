@@ -10,25 +10,21 @@ import { specFrom } from '../../src/engine/core/model-spec';
 import type { Market, Model, OptionSpec } from '../../src/engine/core';
 import { CASE_HESTON, MODEL_CASES } from './helpers';
 
-const heston = CASE_HESTON;
+const SVCJ = {
+  kind: 'svcj',
+  ...CASE_HESTON,
+  jumpIntensity: 0.6,
+  jumpMean: -0.05,
+  jumpStdev: 0.06,
+  varianceJumpMean: 0.05,
+  jumpCorrelation: -0.8,
+} as Model;
 const MODELS: Record<string, Model> = {
   'black-scholes': { kind: 'black-scholes', sigma: 0.22 },
   ...MODEL_CASES,
-  svcj: {
-    kind: 'svcj',
-    ...heston,
-    jumpIntensity: 0.6,
-    jumpMean: -0.05,
-    jumpStdev: 0.06,
-    varianceJumpMean: 0.05,
-    jumpCorrelation: -0.8,
-  },
+  svcj: SVCJ,
   'bates with scheduled moves and an intensity schedule': {
-    kind: 'bates',
-    ...heston,
-    jumpIntensity: 0.5,
-    jumpMean: -0.1,
-    jumpStdev: 0.15,
+    ...MODEL_CASES.bates,
     events: [
       { time: 10 / 365, law: 'normal', stdev: 0.04 },
       { time: 40 / 365, law: 'two-point', up: 0.05, down: -0.08, upProbability: 0.6 },
@@ -39,13 +35,7 @@ const MODELS: Record<string, Model> = {
     ],
   },
   'svcj with an intensity schedule': {
-    kind: 'svcj',
-    ...heston,
-    jumpIntensity: 0.6,
-    jumpMean: -0.05,
-    jumpStdev: 0.06,
-    varianceJumpMean: 0.05,
-    jumpCorrelation: -0.8,
+    ...SVCJ,
     jumpIntensitySchedule: [[0.1, 2.5]],
   },
 } as Record<string, Model>;
