@@ -51,7 +51,7 @@ describe('Sketch', () => {
       .textContent();
     expect(Number(change)).toBeGreaterThan(0);
     await expect
-      .poll(() => page.getByTestId('save-state').getAttribute('data-state'))
+      .poll(() => page.getByTestId('save-state').getAttribute('data-state'), { timeout: 10000 })
       .toBe('saved');
     expect(errors).toEqual([]);
     await context.close();
