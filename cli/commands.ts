@@ -4,9 +4,8 @@ import {
   impliedEventMoves,
   priceOptions,
   impliedVol,
-  modelSpec,
   smileSurface,
-  strikeGrids,
+  surfaceGrids,
   type SmileSurface,
 } from '../src/engine/analytic';
 import { arbitrageFlags, calibrate as calibrateModel, completeGuess } from '../src/engine/fit';
@@ -112,13 +111,13 @@ export function smile(request: unknown) {
   const doc = parsed.value;
   parse(stressSchema.optional(), doc.stress);
   const started = performance.now();
-  const grids = strikeGrids(
-    modelSpec(doc.model),
+  const base = smileSurface(
+    doc.market,
+    doc.model,
     doc.grid.expiries,
     doc.grid.moneyness,
     doc.grid.strikeSpacing,
   );
-  const base = smileSurface(doc.market, doc.model, doc.grid.expiries, grids);
   let stressed: SmileSurface | undefined;
   if (!isIdentityStress(doc.stress)) {
     const s = applyStress(doc.market, doc.model, doc.stress ?? {});
@@ -129,7 +128,7 @@ export function smile(request: unknown) {
         s.issues[0].path,
       );
     }
-    stressed = smileSurface(s.market, s.model, doc.grid.expiries, grids);
+    stressed = smileSurface(s.market, s.model, doc.grid.expiries, surfaceGrids(base));
   }
   const events = doc.model.events ?? [];
   const { eventBaseVol } = parse(eventBaseVolSchema, doc);

@@ -7,7 +7,7 @@ import {
   smileSensitivities,
   logReturnDensity,
   smileSurface,
-  strikeGrids,
+  surfaceGrids,
   termStructureExpiries,
   type SmileSurface,
 } from '../engine/analytic';
@@ -45,9 +45,14 @@ function baseSurface(req: SmileRequest): { surface: SmileSurface; grids: number[
     req.strikeSpacing,
   ]);
   if (key !== lastBase.key || !lastBase.surface) {
-    const spec = modelSpec(req.model);
-    lastBase.grids = strikeGrids(spec, req.expiries, req.moneyness, req.strikeSpacing);
-    lastBase.surface = smileSurface(req.market, req.model, req.expiries, lastBase.grids);
+    lastBase.surface = smileSurface(
+      req.market,
+      req.model,
+      req.expiries,
+      req.moneyness,
+      req.strikeSpacing,
+    );
+    lastBase.grids = surfaceGrids(lastBase.surface);
     lastBase.key = key;
   }
   return { surface: lastBase.surface, grids: lastBase.grids };

@@ -3,7 +3,7 @@ import type { Server } from 'node:http';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
 import { createApp } from '../../server/app';
 import { freePort } from '../../server/bootstrap/postgres';
 import { testDatabaseUrl, testDb } from '../support/database';
@@ -79,6 +79,27 @@ export function appAndBrowser(): { app: () => RunningApp; browser: () => Browser
     await app?.close();
   });
   return { app: () => app!, browser: () => browser! };
+}
+
+/**
+ * A fresh 1400 × 1000 tab on Sketch, once its smile panels have been drawn; with the page's
+ * uncaught errors collected.
+ */
+export async function openSketch(env: ReturnType<typeof appAndBrowser>): Promise<{
+  context: BrowserContext;
+  page: Page;
+  errors: string[];
+}> {
+  const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
+  const page = await context.newPage();
+  const errors = trackErrors(page);
+  await page.goto(env.app().url);
+  await expect
+    .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
+      timeout: 20000,
+    })
+    .toBeGreaterThan(0);
+  return { context, page, errors };
 }
 
 /** Signs in through the sign-in page in a fresh tab of the context; resolves on the Library. */

@@ -1,19 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { appAndBrowser, trackErrors } from './harness';
+import { appAndBrowser, openSketch } from './harness';
 
 const env = appAndBrowser();
 
 describe('Sketch with a scheduled move', () => {
   it('adds a dated move, shows its implied move and the expiries that straddle it, and keeps it after a reload', async () => {
-    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
-    const page = await context.newPage();
-    const errors = trackErrors(page);
-    await page.goto(env.app().url);
-    await expect
-      .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
-        timeout: 20000,
-      })
-      .toBeGreaterThan(0);
+    const { context, page, errors } = await openSketch(env);
 
     const panel = page.getByTestId('events-panel');
     await panel.scrollIntoViewIfNeeded();

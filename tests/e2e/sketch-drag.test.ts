@@ -9,21 +9,13 @@ import { formatVol } from '../../src/components/format';
 import { smileRequest } from '../../src/features/sketch/hooks/use-smiles';
 import { demoScenarios } from '../../src/store/demo-scenarios';
 import { computeSmiles } from '../../src/workers/engine-handlers';
-import { appAndBrowser, trackErrors } from './harness';
+import { appAndBrowser, openSketch } from './harness';
 
 const env = appAndBrowser();
 
 describe('Sketch under a fast drag', () => {
   it('ends on the final position in the smile panels and in the table', async () => {
-    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
-    const page = await context.newPage();
-    const errors = trackErrors(page);
-    await page.goto(env.app().url);
-    await expect
-      .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
-        timeout: 20000,
-      })
-      .toBeGreaterThan(0);
+    const { context, page, errors } = await openSketch(env);
     await page.evaluate(() => {
       const w = window as unknown as { painted: string[] };
       w.painted = [];

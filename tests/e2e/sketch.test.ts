@@ -1,21 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { appAndBrowser, trackErrors } from './harness';
+import { appAndBrowser, openSketch, trackErrors } from './harness';
 
 const env = appAndBrowser();
 
 describe('Sketch', () => {
   it('draws the stressed smile and fills the stressed column when a stress slider is dragged', async () => {
-    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
-    const page = await context.newPage();
-    const errors = trackErrors(page);
-    await page.goto(env.app().url);
+    const { context, page, errors } = await openSketch(env);
     const chart = page.getByTestId('smile-chart');
     await expect.poll(() => chart.getAttribute('data-stressed'), { timeout: 20000 }).toBe('no');
-    await expect
-      .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
-        timeout: 20000,
-      })
-      .toBeGreaterThan(0);
     const cellBefore = await page
       .getByTestId('smile-table')
       .locator('tbody tr')

@@ -1,19 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { appAndBrowser, trackErrors } from './harness';
+import { appAndBrowser, openSketch } from './harness';
 
 const env = appAndBrowser();
 
 describe('an SVCJ scenario', () => {
   it('is made on Sketch with its jump law in plain words, kept after a reload, and its gap ladder draws the rule lines', async () => {
-    const context = await env.browser().newContext({ viewport: { width: 1400, height: 1000 } });
-    const page = await context.newPage();
-    const errors = trackErrors(page);
-    await page.goto(env.app().url);
-    await expect
-      .poll(() => page.locator('[data-testid="smile-canvas"][data-panels]').count(), {
-        timeout: 20000,
-      })
-      .toBeGreaterThan(0);
+    const { context, page, errors } = await openSketch(env);
     const kind = page.locator('select').filter({ hasText: 'SVCJ' });
     await kind.selectOption('svcj');
     const note = page.getByTestId('jump-law-note');

@@ -4,11 +4,20 @@
  * the grid's ends are ±4·σ·√T exactly.
  */
 import { describe, expect, it } from 'vitest';
-import { atmVolAt, modelSpec, smileSurface, strikeGrids } from '../../src/engine/analytic';
-import { DEFAULT_BATES, forwardPrice, type Market } from '../../src/engine/core';
+import { atmVolAt, modelSpec, smileSurface, surfaceGrids } from '../../src/engine/analytic';
+import { DEFAULT_BATES, forwardPrice, type Market, type Model } from '../../src/engine/core';
 
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
-const bs = modelSpec({ kind: 'black-scholes', sigma: 0.2 });
+const BS: Model = { kind: 'black-scholes', sigma: 0.2 };
+const bs = modelSpec(BS);
+
+/** Each expiry's ln(K/F) list, as a smile request draws it. */
+const strikeGrids = (
+  model: Model,
+  expiries: number[],
+  moneyness: number[],
+  spacing?: 'standard-deviations',
+) => surfaceGrids(smileSurface(market, model, expiries, moneyness, spacing));
 
 function expectShape(ks: number[], end: number) {
   expect(ks).toHaveLength(41);
@@ -25,7 +34,7 @@ describe('standard-deviation strike grid', () => {
   it('a one-day expiry spans ±4 ATM standard deviations: strikes about ±4.3 % around the forward', () => {
     const T = 1 / 365;
     expect(atmVolAt(bs, T)).toBeCloseTo(0.2, 12);
-    const [ks] = strikeGrids(bs, [T], [0], 'standard-deviations');
+    const [ks] = strikeGrids(BS, [T], [0], 'standard-deviations');
     const end = 4 * 0.2 * Math.sqrt(T); // 0.041874
     expectShape(ks, end);
     const F = forwardPrice(market, T);
@@ -34,14 +43,13 @@ describe('standard-deviation strike grid', () => {
   });
 
   it('a one-year expiry spans ±0.8 in ln(K/F) at σ = 20 %', () => {
-    const [ks] = strikeGrids(bs, [1], [0], 'standard-deviations');
+    const [ks] = strikeGrids(BS, [1], [0], 'standard-deviations');
     expectShape(ks, 0.8);
   });
 
   it("follows the model's own ATM vol under Bates, per expiry", () => {
-    const spec = modelSpec(DEFAULT_BATES);
     const expiries = [1 / 365, 7 / 365, 1];
-    const grids = strikeGrids(spec, expiries, [0], 'standard-deviations');
+    const grids = strikeGrids(DEFAULT_BATES, expiries, [0], 'standard-deviations');
     const surface = smileSurface(market, DEFAULT_BATES, expiries, grids);
     surface.slices.forEach((slice, i) => {
       const end = 4 * slice.atm! * Math.sqrt(expiries[i]);
@@ -53,7 +61,7 @@ describe('standard-deviation strike grid', () => {
 
   it('a grid without a spacing keeps its one log-moneyness list for every expiry', () => {
     const moneyness = [-0.3, -0.1, 0, 0.1, 0.3];
-    const grids = strikeGrids(bs, [1 / 365, 1], moneyness);
+    const grids = strikeGrids(BS, [1 / 365, 1], moneyness);
     expect(grids).toEqual([moneyness, moneyness]);
   });
 });

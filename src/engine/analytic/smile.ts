@@ -8,6 +8,7 @@ import { cosStrip, prepareCos, type CosExpiry, DEFAULT_COS_SETTINGS } from './co
 import { forwardPrice } from '../core/market';
 import { normCdf, normInv } from './normal';
 import { impliedVolFromOtm } from './pricing';
+import { expiryGrid, type StrikeSpacing } from './strike-grid';
 import type { Market, Model } from '../core/types';
 
 export interface SmileSlice {
@@ -81,13 +82,20 @@ function deltaWings(
   return { rr: vc - vp, bf: 0.5 * (vc + vp) - atm, kCall, kPut };
 }
 
+/**
+ * One expiry's smile on the given ln(K/F) list, or with `spacing` "standard-deviations" on the
+ * expiry's own grid around that list's ATM vol (see `strike-grid.ts`), from one preparation.
+ */
 export function smileSlice(
   spec: ModelSpec,
   market: Market,
   expiry: number,
-  logMoneyness: readonly number[],
+  moneyness: readonly number[],
+  spacing: StrikeSpacing = 'log-moneyness',
 ): SmileSlice {
   const prep = prepareCos(spec, expiry, DEFAULT_COS_SETTINGS);
+  const atm = volAt(prep, 0);
+  const logMoneyness = expiryGrid(spec, expiry, atm, moneyness, spacing);
   const F = forwardPrice(market, expiry);
   const n = logMoneyness.length;
   const call = new Float64Array(n);
@@ -104,7 +112,6 @@ export function smileSlice(
     const s = v * rootT;
     return normCdf(-logMoneyness[j] / s + 0.5 * s);
   });
-  const atm = volAt(prep, 0);
   const none = { rr: null, bf: null, kCall: null, kPut: null };
   const w25 = atm === null ? none : deltaWings(prep, atm, 0.25);
   const w10 = atm === null ? none : deltaWings(prep, atm, 0.1);
@@ -129,24 +136,31 @@ export function smileSlice(
 }
 
 /**
- * Smiles at each expiry, on one ln(K/F) list shared by all of them or on one list per expiry
- * (see `strikeGrids`).
+ * Smiles at each expiry: on one ln(K/F) list shared by all of them (spaced by `spacing`, see
+ * `smileSlice`), or on one given list per expiry (a stressed side drawn on its base's strikes).
  */
 export function smileSurface(
   market: Market,
   model: Model,
   expiries: readonly number[],
   logMoneyness: readonly number[] | ReadonlyArray<readonly number[]>,
+  spacing: StrikeSpacing = 'log-moneyness',
 ): SmileSurface {
   const spec = modelSpec(model);
-  const perExpiry = (i: number): readonly number[] => {
-    const first = logMoneyness[0];
-    return typeof first === 'number' || first === undefined
-      ? (logMoneyness as readonly number[])
-      : (logMoneyness as ReadonlyArray<readonly number[]>)[i];
+  const first = logMoneyness[0];
+  const shared = typeof first === 'number' || first === undefined;
+  return {
+    slices: expiries.map((t, i) =>
+      shared
+        ? smileSlice(spec, market, t, logMoneyness as readonly number[], spacing)
+        : smileSlice(spec, market, t, (logMoneyness as ReadonlyArray<readonly number[]>)[i]),
+    ),
   };
-  return { slices: expiries.map((t, i) => smileSlice(spec, market, t, perExpiry(i))) };
 }
+
+/** The ln(K/F) list of each slice: what a stressed side is drawn on. */
+export const surfaceGrids = (surface: SmileSurface): number[][] =>
+  surface.slices.map((s) => s.logMoneyness);
 
 /**
  * Density of the log-return ln(S_T/F) at the given points: the COS strip's density output, whose
@@ -187,6 +201,10 @@ export function termStructureExpiries(
   }
   return [...set].filter((t) => t > 0 && t <= last).sort((a, b) => a - b);
 }
+
+/** ATM (at the forward) implied vol at one expiry; null where it is not defined. */
+export const atmVolAt = (spec: ModelSpec, expiry: number): number | null =>
+  volAt(prepareCos(spec, expiry, DEFAULT_COS_SETTINGS), 0);
 
 /** ATM (at the forward) implied vols at the given expiries. */
 export function atmTermStructure(model: Model, expiries: readonly number[]): (number | null)[] {

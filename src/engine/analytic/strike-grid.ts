@@ -6,9 +6,7 @@
  * panel then spans the few percent a day's options are listed over, and a one-year panel its
  * whole quoted wing.
  */
-import { cosStrip, prepareCos } from './cos';
 import { roughVariance } from './cumulants';
-import { impliedVolFromOtm } from './pricing';
 import type { ModelSpec } from './characteristic';
 
 export type StrikeSpacing = 'log-moneyness' | 'standard-deviations';
@@ -33,24 +31,18 @@ export function standardDeviationGrid(
   });
 }
 
-/** ATM (at the forward) implied vol of the model at T; the rough total vol where undefined. */
-export function atmVolAt(spec: ModelSpec, expiry: number): number {
-  const prep = prepareCos(spec, expiry);
-  const one = () => new Float64Array(1);
-  const call = one();
-  const put = one();
-  cosStrip(prep, [0], call, put, one(), one());
-  const vol = impliedVolFromOtm(call[0], 0, expiry);
-  return vol ?? Math.sqrt(roughVariance(spec, expiry) / expiry);
-}
-
-/** Each expiry's ln(K/F) list for a scenario grid. */
-export function strikeGrids(
+/**
+ * One expiry's ln(K/F) list: the scenario's own list, or the standard-deviation grid around the
+ * expiry's ATM vol (the rough total vol where that is not defined).
+ */
+export function expiryGrid(
   spec: ModelSpec,
-  expiries: readonly number[],
+  expiry: number,
+  atmVol: number | null,
   moneyness: readonly number[],
-  spacing: StrikeSpacing = 'log-moneyness',
-): number[][] {
-  if (spacing === 'log-moneyness') return expiries.map(() => [...moneyness]);
-  return expiries.map((T) => standardDeviationGrid(atmVolAt(spec, T), T));
+  spacing: StrikeSpacing,
+): readonly number[] {
+  if (spacing === 'log-moneyness') return moneyness;
+  const vol = atmVol ?? Math.sqrt(roughVariance(spec, expiry) / expiry);
+  return standardDeviationGrid(vol, expiry);
 }
