@@ -36,14 +36,16 @@ export interface SmileSurface {
   slices: SmileSlice[];
 }
 
+/** One-strike working arrays, reused: the delta-strike searches call `volAt` many times. */
+const ONE = { k: new Float64Array(1), c: new Float64Array(1), p: new Float64Array(1) };
+const ONE_CDF = new Float64Array(1);
+const ONE_DENSITY = new Float64Array(1);
+
 /** Vol at one log-moneyness from a prepared expiry. */
 function volAt(prep: CosExpiry, k: number): number | null {
-  const c = new Float64Array(1);
-  const p = new Float64Array(1);
-  const cdf = new Float64Array(1);
-  const d = new Float64Array(1);
-  cosStrip(prep, [k], c, p, cdf, d);
-  return impliedVolFromOtm(k < 0 ? p[0] : c[0], k, prep.expiry);
+  ONE.k[0] = k;
+  cosStrip(prep, ONE.k, ONE.c, ONE.p, ONE_CDF, ONE_DENSITY);
+  return impliedVolFromOtm(k < 0 ? ONE.p[0] : ONE.c[0], k, prep.expiry);
 }
 
 /**
