@@ -13,7 +13,7 @@ import { expectedJumps } from '../core/model-spec';
 import { touches, twoPointOutcomes } from '../core/scheduled-moves';
 import { stripSums, stripSumsWithSlope } from './cos-sums';
 import { cosSeries, type CosSeries } from './cos-series';
-import { mixtureParts, type MixturePart } from './cos-mixture';
+import { jumpSplitParts, type MixturePart } from './cos-jump-split';
 
 export type { CosSeries, CosSlope } from './cos-series';
 
@@ -33,7 +33,7 @@ export const DEFAULT_COS_SETTINGS: CosSettings = {
   maxTerms: 1 << 16,
 };
 
-/** One expiry's prepared series, or a Poisson mixture of narrower ones (see `cos-mixture.ts`). */
+/** One expiry's prepared series, or, at short expiries with jumps, two narrower ones weighted (see `cos-jump-split.ts`). */
 export interface CosExpiry extends CosSeries {
   expiry: number;
   /** variance of Y (second cumulant) and of its diffusive part alone */
@@ -94,7 +94,7 @@ export function prepareCos(
   const { c1, c2, c4 } = cumulants(spec, T);
   const events = eventExtent(spec, T);
   const half = settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T) + events;
-  const parts = mixtureParts(spec, T, settings, withSlope, events, half);
+  const parts = jumpSplitParts(spec, T, settings, withSlope, events, half);
   if (parts) {
     return {
       // the range a single series would take: where the law lives, for callers that grid it
@@ -150,7 +150,7 @@ export function cosStrip(
   else seriesStrip(prep, logMoneyness, call, put, cdf, density, timeSlope);
 }
 
-/** `cosStrip` for a Poisson mixture: each part's strip, weighted; the weights move with τ too. */
+/** `cosStrip` for weighted parts: each part's strip, weighted; the weights move with τ too. */
 function mixtureStrip(
   parts: readonly MixturePart[],
   logMoneyness: ArrayLike<number>,

@@ -1,10 +1,10 @@
 /**
- * Short expiries with lognormal jumps are priced as a Poisson mixture of narrow COS series
- * (conditioned on the number of jumps). Checked against two outside references:
+ * Short expiries with jumps are priced as two COS series, split on whether a jump arrives (no
+ * jump: narrow; at least one: smooth). Checked against two outside references:
  * - Merton (1976), "Option pricing when underlying stock returns are discontinuous", J. Financial
  *   Economics 3: the price is Σ_n e^{−λ'T}(λ'T)^n/n! · BS(σ_n, r_n) with λ' = λ(1 + κ̄),
  *   σ_n² = σ² + nδ²/T, r_n = r − λκ̄ + n·ln(1 + κ̄)/T (his eq. 19);
- * - the Lewis (2001) integral, an independent Fourier route, for Bates.
+ * - the Lewis (2001) integral, an independent Fourier route, for Bates and SVCJ.
  */
 import { describe, expect, it } from 'vitest';
 import {
@@ -61,7 +61,7 @@ function shortStrip(days: number): OptionSpec[] {
   }));
 }
 
-describe('Poisson mixture for short expiries with jumps', () => {
+describe('short expiries with jumps, split on whether a jump arrives', () => {
   const merton = { sigma: 0.18, jumpIntensity: 0.8, jumpMean: -0.08, jumpStdev: 0.12 };
 
   it('is used at one and two days, and not once jumps are frequent enough', () => {
@@ -83,6 +83,20 @@ describe('Poisson mixture for short expiries with jumps', () => {
     }
   });
 
+  it('has two parts whose weights add to 1 and whose E[e^Y] average to 1, as a martingale', () => {
+    const spec = modelSpec(DEFAULT_BATES);
+    const parts = prepareCos(spec, 7 / 365).parts;
+    expect(parts).toHaveLength(2);
+    const [quiet, jump] = parts!;
+    // no jump in a week at λ = 0.5 a year: e^{−Λ}, Λ = 0.5 · 7/365
+    expect(quiet.weight).toBeCloseTo(Math.exp((-0.5 * 7) / 365), 15);
+    expect(quiet.weight + jump.weight).toBeCloseTo(1, 15);
+    expect(quiet.weight * quiet.series.mean + jump.weight * jump.series.mean).toBeCloseTo(1, 14);
+    // the part with a jump is smooth: far fewer terms than the no-jump part on a wider range
+    expect(jump.series.b - jump.series.a).toBeGreaterThan(quiet.series.b - quiet.series.a);
+    expect(jump.series.terms).toBeLessThan(quiet.series.terms);
+  });
+
   it('agrees with the Lewis integral for Bates within 1e-10 × spot', () => {
     const bates: Model = DEFAULT_BATES;
     expect(prepareCos(modelSpec(bates), 1 / 365).parts).not.toBeNull();
@@ -91,6 +105,24 @@ describe('Poisson mixture for short expiries with jumps', () => {
       const priced = priceOptions(market, bates, options);
       options.forEach((o, i) => {
         const reference = lewisPrice(market, bates, o.type, o.strike, o.expiry);
+        expect(Math.abs(priced[i].price - reference)).toBeLessThan(1e-10 * 100);
+      });
+    }
+  });
+
+  it('agrees with the Lewis integral for SVCJ from 1 day to 3 months within 1e-10 × spot', () => {
+    const svcj: Model = {
+      ...DEFAULT_BATES,
+      kind: 'svcj',
+      varianceJumpMean: 0.05,
+      jumpCorrelation: -0.5,
+    };
+    expect(prepareCos(modelSpec(svcj), 1 / 365).parts).not.toBeNull();
+    for (const days of [1, 7, 30, 91]) {
+      const options = shortStrip(days);
+      const priced = priceOptions(market, svcj, options);
+      options.forEach((o, i) => {
+        const reference = lewisPrice(market, svcj, o.type, o.strike, o.expiry);
         expect(Math.abs(priced[i].price - reference)).toBeLessThan(1e-10 * 100);
       });
     }

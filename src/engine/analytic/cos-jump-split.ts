@@ -1,0 +1,219 @@
+/**
+ * Short expiries with jumps, split on whether a jump arrives before T. Over days or weeks the
+ * diffusion spreads Y by about σ√T while a jump moves it by μJ ± σJ: one cosine series must span
+ * the jumps' range at the diffusion's resolution and needs 600–1,300 terms. Conditioning on the
+ * jump count N (as Merton 1976 writes his price as a Poisson sum) splits the law in two:
+ * - N = 0, weight e^{−Λ}: the jump-free law shifted by the compensator −Λκ̄; narrow, on its own
+ *   range, with the jump-free law's few terms;
+ * - N ≥ 1, weight 1 − e^{−Λ}: wide, but at least one independent N(·, σJ²) jump is in it, so its
+ *   characteristic function, φ − e^{−Λ}φ₀, falls like e^{−σJ²u²/2} and a few dozen terms cover it.
+ * This holds for Merton/Bates jumps and for SVCJ's (given no jump the variance never jumps, so
+ * the N = 0 part is plain Heston); Kou's exponential jumps do not smooth the law and keep the
+ * single series.
+ */
+import { logCharacteristic, type ModelSpec, type TimeSlopeOut } from './characteristic';
+import { cumulants } from './cumulants';
+import { cosSeries, type CosSeries, type LogCf } from './cos-series';
+import type { CosSettings } from './cos';
+import { expectedJumps, NO_JUMPS, type JumpLaw } from '../core/model-spec';
+import { intensityAt } from '../core/scheduled-moves';
+
+export interface MixturePart {
+  /** the part's probability and its slope in τ */
+  weight: number;
+  weightSlope: number;
+  series: CosSeries;
+}
+
+/** Smaller blocks than a single series', so that a narrow part can stop early. */
+const PART_BLOCK = 32;
+/** The split is taken when its estimated terms are below this share of the single series'. */
+const WORTHWHILE = 0.9;
+
+/** E[e^{Z}] − 1 for one jump's log-move Z, and the normal spread σJ in it; null for Kou. */
+function jumpMoments(j: JumpLaw): { kbar: number; spread: number } | null {
+  if (j.type === 'lognormal')
+    return { kbar: Math.expm1(j.jumpMean + 0.5 * j.jumpStdev ** 2), spread: j.jumpStdev };
+  if (j.type === 'price-variance')
+    return {
+      kbar:
+        Math.exp(j.jumpMean + 0.5 * j.jumpStdev ** 2) /
+          (1 - j.jumpCorrelation * j.varianceJumpMean) -
+        1,
+      spread: j.jumpStdev,
+    };
+  return null;
+}
+
+/**
+ * Where |φ(u)|/(1 + u²) of a law falls below `tolerance`, found by doubling from `start` and
+ * then bisecting: an estimate of the series' last u, to weigh the split against the single one.
+ */
+function decayPoint(logCf: LogCf, start: number, tolerance: number): number {
+  const wr = new Float64Array(1);
+  const wi = new Float64Array(1);
+  const re = new Float64Array(1);
+  const im = new Float64Array(1);
+  const decayed = (u: number) => {
+    wi[0] = u;
+    logCf(wr, wi, re, im, 1);
+    return Math.exp(re[0]) / (1 + u * u) < tolerance;
+  };
+  let lo = 0;
+  let hi = start;
+  for (let i = 0; i < 40 && !decayed(hi); i++) {
+    lo = hi;
+    hi *= 2;
+  }
+  for (let i = 0; i < 5; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (decayed(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi;
+}
+
+/**
+ * The two parts for the spec's jumps at T, or null when the spec has no such jumps or the
+ * single series is the cheaper one. `extraHalfWidth` widens the jump-free part's range as the
+ * caller does for its own (scheduled two-point moves); `singleHalfWidth` is the single series'
+ * half-width, which the N ≥ 1 part takes.
+ */
+export function jumpSplitParts(
+  spec: ModelSpec,
+  T: number,
+  settings: CosSettings,
+  withSlope: boolean,
+  extraHalfWidth: number,
+  singleHalfWidth: number,
+): MixturePart[] | null {
+  const j = spec.jumps;
+  const moments = jumpMoments(j);
+  if (!moments || !(moments.spread > 0) || j.type === 'none') return null;
+  const lambdaT = expectedJumps(spec, T);
+  // so rare a jump part only risks underflow in 1 − e^{−Λ}: the single series takes it
+  if (!(lambdaT > 1e-12)) return null;
+  const { kbar, spread } = moments;
+  const lambdaNow = intensityAt(j.jumpIntensity, spec.intensitySchedule, 0);
+  const quiet: ModelSpec = { diffusion: spec.diffusion, jumps: NO_JUMPS };
+  if (spec.events) quiet.events = spec.events;
+  const base = cumulants(quiet, T);
+  const p0 = Math.exp(-lambdaT);
+  const pJump = -Math.expm1(-lambdaT);
+  const shift = -lambdaT * kbar;
+  const tolerance = settings.tailTolerance;
+
+  // jump-free: ln φ₀ + w·shift, whose slope gains −w·κ̄·λ(0)
+  const quietCf: LogCf = (wr, wi, re, im, count, slope) => {
+    logCharacteristic(quiet, T, wr, wi, re, im, count, slope);
+    for (let k = 0; k < count; k++) {
+      re[k] += shift * wr[k];
+      im[k] += shift * wi[k];
+      if (slope) {
+        slope.re[k] -= wr[k] * kbar * lambdaNow;
+        slope.im[k] -= wi[k] * kbar * lambdaNow;
+      }
+    }
+  };
+  const quietHalf = settings.width * Math.sqrt(base.c2 + Math.sqrt(base.c4)) + extraHalfWidth;
+  // terms ∝ range × last u: the single series ends where the jump-free law does, the N ≥ 1
+  // part where e^{−σJ²u²/2}·(1 − e^{−Λ}) falls below the tolerance, if sooner
+  const uQuiet = decayPoint(quietCf, (PART_BLOCK * Math.PI) / (2 * quietHalf), tolerance);
+  const uJump = Math.min(uQuiet, Math.sqrt(2 * Math.log(pJump / tolerance)) / spread);
+  if (quietHalf * uQuiet + singleHalfWidth * uJump >= WORTHWHILE * singleHalfWidth * uQuiet)
+    return null;
+
+  const quietC1 = base.c1 + shift;
+  const quietSeries = cosSeries(
+    quietC1 - quietHalf,
+    quietC1 + quietHalf,
+    settings,
+    withSlope,
+    quietCf,
+    PART_BLOCK,
+  );
+  // E[e^Y | N = 0] = e^{−Λκ̄}
+  quietSeries.mean = Math.exp(shift);
+  quietSeries.meanSlope = -lambdaNow * kbar * quietSeries.mean;
+
+  const jumpCf = jumpPartCf(spec, T, quietCf, p0, pJump, lambdaNow);
+  const c1 = cumulants(spec, T).c1;
+  const jumpSeries = cosSeries(
+    c1 - singleHalfWidth,
+    c1 + singleHalfWidth,
+    // the part's error counts at its weight: it may stop its series sooner
+    { ...settings, tailTolerance: Math.min(1e-6, tolerance / pJump) },
+    withSlope,
+    jumpCf,
+    PART_BLOCK,
+  );
+  // E[e^Y | N ≥ 1] = (1 − e^{−Λ}·e^{−Λκ̄})/(1 − e^{−Λ}), so that the two parts' means average to 1
+  const quietMass = p0 * quietSeries.mean; // e^{−Λ(1 + κ̄)}
+  jumpSeries.mean = -Math.expm1(-lambdaT * (1 + kbar)) / pJump;
+  jumpSeries.meanSlope =
+    (lambdaNow * (1 + kbar) * quietMass * pJump - lambdaNow * p0 * pJump * jumpSeries.mean) /
+    (pJump * pJump);
+  return [
+    { weight: p0, weightSlope: -lambdaNow * p0, series: quietSeries },
+    { weight: pJump, weightSlope: lambdaNow * p0, series: jumpSeries },
+  ];
+}
+
+/**
+ * ln of the N ≥ 1 part's characteristic function, (φ − e^{−Λ}φ₀)/(1 − e^{−Λ}), and its time
+ * slope: ∂τ(φ − e^{−Λ}φ₀) = φ·∂τ ln φ − e^{−Λ}φ₀·(∂τ ln φ₀ − λ(0)), divided by the difference,
+ * less ∂τ ln(1 − e^{−Λ}) = λ(0)e^{−Λ}/(1 − e^{−Λ}). Only e^{ln φ} is used, so any branch will do.
+ */
+function jumpPartCf(
+  spec: ModelSpec,
+  T: number,
+  quietCf: LogCf,
+  p0: number,
+  pJump: number,
+  lambdaNow: number,
+): LogCf {
+  let size = 0;
+  let qRe = new Float64Array(0);
+  let qIm = new Float64Array(0);
+  let qSlope: TimeSlopeOut = { re: qRe, im: qIm };
+  const logWeight = Math.log(pJump);
+  const weightRate = (lambdaNow * p0) / pJump;
+  return (wr, wi, re, im, count, slope) => {
+    if (count > size) {
+      size = count;
+      qRe = new Float64Array(size);
+      qIm = new Float64Array(size);
+      qSlope = { re: new Float64Array(size), im: new Float64Array(size) };
+    }
+    logCharacteristic(spec, T, wr, wi, re, im, count, slope);
+    quietCf(wr, wi, qRe, qIm, count, slope ? qSlope : undefined);
+    for (let k = 0; k < count; k++) {
+      const fm = Math.exp(re[k]);
+      const fr = fm * Math.cos(im[k]);
+      const fi = fm * Math.sin(im[k]);
+      const qm = p0 * Math.exp(qRe[k]);
+      const qr = qm * Math.cos(qIm[k]);
+      const qi = qm * Math.sin(qIm[k]);
+      const zr = fr - qr;
+      const zi = fi - qi;
+      const zm = zr * zr + zi * zi;
+      re[k] = 0.5 * Math.log(zm) - logWeight;
+      im[k] = Math.atan2(zi, zr);
+      if (!slope) continue;
+      if (zm === 0) {
+        slope.re[k] = 0;
+        slope.im[k] = 0;
+        continue;
+      }
+      // φ·s − e^{−Λ}φ₀·(s₀ − λ(0)), over z
+      const sr = slope.re[k];
+      const si = slope.im[k];
+      const s0r = qSlope.re[k] - lambdaNow;
+      const s0i = qSlope.im[k];
+      const nr = fr * sr - fi * si - (qr * s0r - qi * s0i);
+      const ni = fr * si + fi * sr - (qr * s0i + qi * s0r);
+      slope.re[k] = (nr * zr + ni * zi) / zm - weightRate;
+      slope.im[k] = (ni * zr - nr * zi) / zm;
+    }
+  };
+}
