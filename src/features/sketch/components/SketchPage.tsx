@@ -145,8 +145,11 @@ export function SketchPage() {
   const eventBaseVol = typeof doc.eventBaseVol === 'number' ? doc.eventBaseVol : undefined;
 
   return (
+    // each block is its own layout container, and on the right its own paint container too: a
+    // slider step re-lays and repaints the blocks it changes, not the page around them (the forms
+    // keep their paint unclipped, for the focus rings at their edges)
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
-      <aside className="min-w-0 space-y-4" aria-label="Scenario">
+      <aside className="min-w-0 space-y-4 [&>*]:[contain:layout_style]" aria-label="Scenario">
         <ScenarioPicker currentId={doc.id} />
         <div className="space-y-1">
           <input
@@ -161,6 +164,13 @@ export function SketchPage() {
           {errors.name && <p className="text-xs text-stressed">name: {errors.name}</p>}
           <ReadOnlyNote scenarioId={doc.id} />
         </div>
+        <StressPanel
+          stress={stress}
+          kind={doc.model.kind}
+          hasEvents={events.length > 0}
+          issues={smiles.data?.stressIssues ?? []}
+          onChange={handlers.stress}
+        />
         <ModelForm
           market={doc.market}
           model={doc.model}
@@ -192,16 +202,9 @@ export function SketchPage() {
           picked={picked}
           defaultK={defaultTargetK}
         />
-        <StressPanel
-          stress={stress}
-          kind={doc.model.kind}
-          hasEvents={events.length > 0}
-          issues={smiles.data?.stressIssues ?? []}
-          onChange={handlers.stress}
-        />
       </aside>
 
-      <section className="min-w-0 space-y-5" aria-label="Smiles">
+      <section className="min-w-0 space-y-5 [&>*]:[contain:content]" aria-label="Smiles">
         <CautionNote />
         <div className="flex flex-wrap items-center justify-between gap-3">
           <ExpiryPicker expiries={expiries} onChange={handlers.expiries} />

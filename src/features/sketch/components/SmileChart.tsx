@@ -236,11 +236,14 @@ export function SmileChart(props: Props) {
     const el = canvas.current;
     const container = box.current;
     if (!el || !container) return;
+    // the width the resize observer last saw: reading clientWidth inside the frame would force
+    // a layout before the frame's own
+    let seenWidth = -1;
     const redraw = () => {
       cancelAnimationFrame(frame.current);
       frame.current = requestAnimationFrame(() => {
         const ctx = el.getContext('2d');
-        const width = container.clientWidth;
+        const width = seenWidth >= 0 ? seenWidth : container.clientWidth;
         if (!ctx || width <= 0) return;
         const ratio = window.devicePixelRatio || 1;
         if (el.width !== Math.round(width * ratio) || el.height !== Math.round(height * ratio)) {
@@ -253,12 +256,18 @@ export function SmileChart(props: Props) {
         const p = latest.current;
         const geometry = draw(ctx, width, p, held.current, chartTheme(theme));
         drawn.current = { geometry, props: p };
-        el.dataset.panels = JSON.stringify(geometry);
+        // an unchanged attribute is not written: a write would restyle the canvas
+        const panels = JSON.stringify(geometry);
+        if (el.dataset.panels !== panels) el.dataset.panels = panels;
         p.onPainted?.();
       });
     };
     redraw();
-    const observer = new ResizeObserver(redraw);
+    const observer = new ResizeObserver((entries) => {
+      const entry = entries[entries.length - 1];
+      if (entry) seenWidth = Math.round(entry.contentRect.width);
+      redraw();
+    });
     observer.observe(container);
     return () => {
       observer.disconnect();
@@ -303,9 +312,12 @@ export function SmileChart(props: Props) {
           const xs = xValues(found.slice, drawn.current!.props.mode);
           const p = toPixel(g, xs[found.h.index]!, 100 * found.vol);
           el.hidden = false;
-          el.style.left = `${p.px + 8}px`;
-          el.style.top = `${p.py - 28}px`;
           el.textContent = `${formatTenor(found.slice.expiry)} ${found.h.which}: ${(100 * found.vol).toFixed(2)}% at ln(K/F) ${found.slice.logMoneyness[found.h.index].toFixed(3)}`;
+          // left of the point when it would run past the chart's edge (the chart clips its paint)
+          const room = (box.current?.clientWidth ?? Infinity) - (p.px + 8);
+          const left = el.offsetWidth > room ? p.px - 8 - el.offsetWidth : p.px + 8;
+          el.style.left = `${Math.max(0, left)}px`;
+          el.style.top = `${p.py - 28}px`;
         }}
         onMouseLeave={() => {
           if (tip.current) tip.current.hidden = true;

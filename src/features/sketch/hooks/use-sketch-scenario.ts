@@ -24,6 +24,17 @@ import { nudgeSync } from '../../../sync/sync-loop';
 /** One array for "no issues", so what depends on it holds still while the document is valid. */
 const NO_ISSUES: FieldIssue[] = [];
 
+/** Each document is checked once: the edit and the page's issues list ask about the same one. */
+const checked = new WeakMap<ScenarioDocument, ReturnType<typeof parseScenario>>();
+function checkScenario(doc: ScenarioDocument): ReturnType<typeof parseScenario> {
+  let result = checked.get(doc);
+  if (!result) {
+    result = parseScenario(doc);
+    checked.set(doc, result);
+  }
+  return result;
+}
+
 export type SaveState = 'loading' | 'saved' | 'saving' | 'unsaved' | 'invalid' | 'error';
 
 async function initialScenario(requested: string | null): Promise<ScenarioDocument> {
@@ -119,14 +130,14 @@ export function useSketchScenario() {
 
   const issues = useMemo(() => {
     if (!doc) return NO_ISSUES;
-    const r = parseScenario(doc);
+    const r = checkScenario(doc);
     return r.ok ? NO_ISSUES : r.issues;
   }, [doc]);
 
   const update = useCallback(
     (next: ScenarioDocument) => {
       setDoc(next);
-      if (!parseScenario(next).ok) {
+      if (!checkScenario(next).ok) {
         setSaveState('invalid');
         return;
       }
