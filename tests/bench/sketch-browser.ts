@@ -45,10 +45,9 @@ const quantile = (xs: number[], q: number) => {
 };
 
 async function serveDist(): Promise<{ url: string; close: () => Promise<void> }> {
-  if (!existsSync(`${dist}/index.html`)) {
-    const r = spawnSync('npx', ['vite', 'build'], { cwd: root, stdio: 'ignore' });
-    if (r.status !== 0) throw new Error('vite build failed');
-  }
+  // built afresh: a `dist/` left from older code would be measured in its place
+  const r = spawnSync('npx', ['vite', 'build'], { cwd: root, stdio: 'ignore' });
+  if (r.status !== 0 || !existsSync(`${dist}/index.html`)) throw new Error('vite build failed');
   const app = express();
   app.use('/api', (_req, res) => void res.status(503).json({ error: 'offline' }));
   app.use(express.static(dist));

@@ -76,8 +76,8 @@ function decayPoint(logCf: LogCf, start: number, tolerance: number): number {
 /**
  * The two parts for the spec's jumps at T, or null when the spec has no such jumps or the
  * single series is the cheaper one. `extraHalfWidth` widens the jump-free part's range as the
- * caller does for its own (scheduled two-point moves); `singleHalfWidth` is the single series'
- * half-width, which the N ≥ 1 part takes.
+ * caller does for its own (scheduled two-point moves); `single` is the single series' centre and
+ * half-width, whose range the N ≥ 1 part takes.
  */
 export function jumpSplitParts(
   spec: ModelSpec,
@@ -85,8 +85,9 @@ export function jumpSplitParts(
   settings: CosSettings,
   withSlope: boolean,
   extraHalfWidth: number,
-  singleHalfWidth: number,
+  single: { c1: number; half: number },
 ): MixturePart[] | null {
+  const singleHalfWidth = single.half;
   const j = spec.jumps;
   const moments = jumpMoments(j);
   if (!moments || !(moments.spread > 0) || j.type === 'none') return null;
@@ -137,10 +138,9 @@ export function jumpSplitParts(
   quietSeries.meanSlope = -lambdaNow * kbar * quietSeries.mean;
 
   const jumpCf = jumpPartCf(spec, T, quietCf, p0, pJump, lambdaNow);
-  const c1 = cumulants(spec, T).c1;
   const jumpSeries = cosSeries(
-    c1 - singleHalfWidth,
-    c1 + singleHalfWidth,
+    single.c1 - singleHalfWidth,
+    single.c1 + singleHalfWidth,
     // the part's error counts at its weight: it may stop its series sooner
     { ...settings, tailTolerance: Math.min(1e-6, tolerance / pJump) },
     withSlope,

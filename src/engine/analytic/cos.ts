@@ -94,7 +94,7 @@ export function prepareCos(
   const { c1, c2, c4 } = cumulants(spec, T);
   const events = eventExtent(spec, T);
   const half = settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T) + events;
-  const parts = jumpSplitParts(spec, T, settings, withSlope, events, half);
+  const parts = jumpSplitParts(spec, T, settings, withSlope, events, { c1, half });
   if (parts) {
     return {
       // the range a single series would take: where the law lives, for callers that grid it

@@ -232,29 +232,33 @@ export function SmileChart(props: Props) {
   const height = LEGEND_HEIGHT + panelGrid(n).rows * PANEL_HEIGHT;
   const targetsKey = JSON.stringify(props.targets ?? NO_TARGETS);
 
+  // the chart's width as its resize observer last saw it (or as first read): reading clientWidth
+  // inside every drawing frame would force a layout before the frame's own
+  const width = useRef(-1);
+  const redrawRef = useRef<() => void>(() => undefined);
+
+  // one frame per change of what is drawn
   useEffect(() => {
     const el = canvas.current;
     const container = box.current;
     if (!el || !container) return;
-    // the width the resize observer last saw: reading clientWidth inside the frame would force
-    // a layout before the frame's own
-    let seenWidth = -1;
     const redraw = () => {
       cancelAnimationFrame(frame.current);
       frame.current = requestAnimationFrame(() => {
         const ctx = el.getContext('2d');
-        const width = seenWidth >= 0 ? seenWidth : container.clientWidth;
-        if (!ctx || width <= 0) return;
+        if (width.current < 0) width.current = container.clientWidth;
+        const w = width.current;
+        if (!ctx || w <= 0) return;
         const ratio = window.devicePixelRatio || 1;
-        if (el.width !== Math.round(width * ratio) || el.height !== Math.round(height * ratio)) {
-          el.width = Math.round(width * ratio);
+        if (el.width !== Math.round(w * ratio) || el.height !== Math.round(height * ratio)) {
+          el.width = Math.round(w * ratio);
           el.height = Math.round(height * ratio);
-          el.style.width = `${width}px`;
+          el.style.width = `${w}px`;
           el.style.height = `${height}px`;
         }
         ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
         const p = latest.current;
-        const geometry = draw(ctx, width, p, held.current, chartTheme(theme));
+        const geometry = draw(ctx, w, p, held.current, chartTheme(theme));
         drawn.current = { geometry, props: p };
         // an unchanged attribute is not written: a write would restyle the canvas
         const panels = JSON.stringify(geometry);
@@ -262,19 +266,28 @@ export function SmileChart(props: Props) {
         p.onPainted?.();
       });
     };
+    redrawRef.current = redraw;
     redraw();
-    const observer = new ResizeObserver((entries) => {
-      const entry = entries[entries.length - 1];
-      if (entry) seenWidth = Math.round(entry.contentRect.width);
-      redraw();
-    });
-    observer.observe(container);
-    return () => {
-      observer.disconnect();
-      cancelAnimationFrame(frame.current);
-    };
+    return () => cancelAnimationFrame(frame.current);
     // targets by value: a page re-render hands a new (equal) array
   }, [props.base, props.stressed, props.mode, targetsKey, theme, height]);
+
+  // one observer for the chart's life: only a new width redraws (its first report, of the width
+  // the first frame read, does not)
+  useEffect(() => {
+    const container = box.current;
+    if (!container) return;
+    const observer = new ResizeObserver((entries) => {
+      const entry = entries[entries.length - 1];
+      if (!entry) return;
+      const w = Math.round(entry.contentRect.width);
+      if (w === width.current) return;
+      width.current = w;
+      redrawRef.current();
+    });
+    observer.observe(container);
+    return () => observer.disconnect();
+  }, []);
 
   // a new expiry set or axis starts its vol axes afresh
   useEffect(() => {
