@@ -33,7 +33,10 @@ export const DEFAULT_COS_SETTINGS: CosSettings = {
   maxTerms: 1 << 16,
 };
 
-/** One expiry's prepared series, or, at short expiries with jumps, two narrower ones weighted (see `cos-jump-split.ts`). */
+/**
+ * One expiry's prepared series or, at short expiries with jumps, two weighted parts: with and
+ * without a jump before T (see `cos-jump-split.ts`).
+ */
 export interface CosExpiry extends CosSeries {
   expiry: number;
   /** variance of Y (second cumulant) and of its diffusive part alone */
