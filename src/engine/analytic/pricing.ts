@@ -10,7 +10,7 @@ import { modelSpec, type ModelSpec } from './characteristic';
 import { cosStrip, prepareCos, type CosSettings, DEFAULT_COS_SETTINGS } from './cos';
 import { normalisedImpliedSigma } from './implied-vol';
 import { discountFactor, forwardPrice, marketLogSlopes } from '../core/market';
-import { normCdf } from './normal';
+import { normCdf, normPdf } from './normal';
 import { isBlackScholes, parameterValue } from '../core/models';
 import type { Market, Model, OptionSpec } from '../core/types';
 
@@ -179,9 +179,7 @@ function valueAt(
         cdf: normCdf(-d2),
         density: Math.exp(-0.5 * d2 * d2) / (Math.sqrt(2 * Math.PI) * s),
         // ∂P/∂s = φ(d1) per unit forward, ∂s/∂T = σ²/(2s)
-        timeSlope:
-          (Math.exp(-0.5 * (d2 + s) * (d2 + s)) / Math.sqrt(2 * Math.PI)) *
-          ((sigma * sigma) / (2 * s)),
+        timeSlope: normPdf(d2 + s) * ((sigma * sigma) / (2 * s)),
         forward: F,
         discount: df,
         impliedVol: impliedVolFromOtm((k < 0 ? p.price : c.price) / (df * F), k, expiry),
