@@ -15,6 +15,8 @@ import { logCharacteristic, type ModelSpec, type TimeSlopeOut } from './characte
 import { cumulants } from './cumulants';
 import { cosSeries, type CosSeries, type LogCf } from './cos-series';
 import type { CosSettings } from './cos';
+import { lawRange } from './cos-range';
+import type { TruncationRange } from './truncation-range';
 import { expectedJumps, NO_JUMPS, type JumpLaw } from '../core/model-spec';
 import { intensityAt } from '../core/scheduled-moves';
 
@@ -75,19 +77,16 @@ function decayPoint(logCf: LogCf, start: number, tolerance: number): number {
 
 /**
  * The two parts for the spec's jumps at T, or null when the spec has no such jumps or the
- * single series is the cheaper one. `extraHalfWidth` widens the jump-free part's range as the
- * caller does for its own (scheduled two-point moves); `single` is the single series' centre and
- * half-width, whose range the N ≥ 1 part takes.
+ * single series is the cheaper one. `single` is the single series' range, which the N ≥ 1 part
+ * takes: its tails are the whole law's, at its weight.
  */
 export function jumpSplitParts(
   spec: ModelSpec,
   T: number,
   settings: CosSettings,
   withSlope: boolean,
-  extraHalfWidth: number,
-  single: { c1: number; half: number },
+  single: TruncationRange,
 ): MixturePart[] | null {
-  const singleHalfWidth = single.half;
   const j = spec.jumps;
   const moments = jumpMoments(j);
   if (!moments || !(moments.spread > 0) || j.type === 'none') return null;
@@ -116,18 +115,20 @@ export function jumpSplitParts(
       }
     }
   };
-  const quietHalf = settings.width * Math.sqrt(base.c2 + Math.sqrt(base.c4)) + extraHalfWidth;
+  const quietRange = lawRange(quiet, T, settings.tailMass, base);
+  quietRange.a += shift;
+  quietRange.b += shift;
+  const quietWidth = quietRange.b - quietRange.a;
+  const singleWidth = single.b - single.a;
   // terms ∝ range × last u: the single series ends where the jump-free law does, the N ≥ 1
   // part where e^{−σJ²u²/2}·(1 − e^{−Λ}) falls below the tolerance, if sooner
-  const uQuiet = decayPoint(quietCf, (PART_BLOCK * Math.PI) / (2 * quietHalf), tolerance);
+  const uQuiet = decayPoint(quietCf, (PART_BLOCK * Math.PI) / quietWidth, tolerance);
   const uJump = Math.min(uQuiet, Math.sqrt(2 * Math.log(pJump / tolerance)) / spread);
-  if (quietHalf * uQuiet + singleHalfWidth * uJump >= WORTHWHILE * singleHalfWidth * uQuiet)
-    return null;
+  if (quietWidth * uQuiet + singleWidth * uJump >= WORTHWHILE * singleWidth * uQuiet) return null;
 
-  const quietC1 = base.c1 + shift;
   const quietSeries = cosSeries(
-    quietC1 - quietHalf,
-    quietC1 + quietHalf,
+    quietRange.a,
+    quietRange.b,
     settings,
     withSlope,
     quietCf,
@@ -139,8 +140,8 @@ export function jumpSplitParts(
 
   const jumpCf = jumpPartCf(spec, T, quietCf, p0, pJump, lambdaNow);
   const jumpSeries = cosSeries(
-    single.c1 - singleHalfWidth,
-    single.c1 + singleHalfWidth,
+    single.a,
+    single.b,
     // the part's error counts at its weight: it may stop its series sooner
     { ...settings, tailTolerance: Math.min(1e-6, tolerance / pJump) },
     withSlope,

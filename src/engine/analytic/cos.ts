@@ -9,17 +9,16 @@
  */
 import { logCharacteristic, type ModelSpec } from './characteristic';
 import { cumulants, diffusionVariance } from './cumulants';
-import { expectedJumps } from '../core/model-spec';
-import { touches, twoPointOutcomes } from '../core/scheduled-moves';
 import { stripSums, stripSumsWithSlope } from './cos-sums';
 import { cosSeries, type CosSeries } from './cos-series';
 import { jumpSplitParts, type MixturePart } from './cos-jump-split';
+import { lawRange } from './cos-range';
 
 export type { CosSeries, CosSlope } from './cos-series';
 
 export interface CosSettings {
-  /** truncation width in units of √(c2 + √c4) (Fang & Oosterlee section 5.1) */
-  width: number;
+  /** probability left below the range and forward above it (see `truncation-range.ts`) */
+  tailMass: number;
   /** stop adding terms once |φ(u_n)|/(1 + u_n²) stays below this over a whole block */
   tailTolerance: number;
   minTerms: number;
@@ -27,7 +26,7 @@ export interface CosSettings {
 }
 
 export const DEFAULT_COS_SETTINGS: CosSettings = {
-  width: 12,
+  tailMass: 1e-14,
   tailTolerance: 1e-14,
   minTerms: 64,
   maxTerms: 1 << 16,
@@ -52,37 +51,6 @@ export interface CosExpiry extends CosSeries {
  */
 const DIRECT_CALL_LIMIT = 5;
 
-/** Extra half-width so the range also holds one jump's tail (c2/c4 alone understate it). */
-function jumpExtent(spec: ModelSpec, T: number): number {
-  const j = spec.jumps;
-  if (j.type === 'none' || !(expectedJumps(spec, T) > 0)) return 0;
-  if (j.type === 'lognormal') return Math.abs(j.jumpMean) + 8.5 * j.jumpStdev;
-  // the exponential variance jump reaches ln S through ρJ: 37 of its means, as for Kou's tails
-  if (j.type === 'price-variance')
-    return (
-      Math.abs(j.jumpMean) +
-      8.5 * j.jumpStdev +
-      37 * Math.abs(j.jumpCorrelation) * j.varianceJumpMean
-    );
-  return 37 * Math.max(j.upMean, j.downMean);
-}
-
-/**
- * Extra half-width for the two-point scheduled moves before T: the sum of their outcomes'
- * largest distances from 0 bounds their joint support, which a bimodal law's c2 and c4 can
- * understate. Normal moves are Gaussian: the cumulants already hold them.
- */
-function eventExtent(spec: ModelSpec, T: number): number {
-  let extent = 0;
-  if (!spec.events) return 0;
-  for (const e of spec.events) {
-    if (e.law !== 'two-point' || !touches(e.time, T)) continue;
-    const { up, down } = twoPointOutcomes(e);
-    extent += Math.max(Math.abs(up), Math.abs(down));
-  }
-  return extent;
-}
-
 /**
  * Prepares one expiry's series. With `withSlope`, the coefficients' time slopes come from the
  * same characteristic-function values (∂A_n/∂τ = (2/(b − a)) Re[φ(u_n)·∂τ ln φ(u_n)·e^{−i u_n a}],
@@ -94,15 +62,14 @@ export function prepareCos(
   settings: CosSettings = DEFAULT_COS_SETTINGS,
   withSlope = false,
 ): CosExpiry {
-  const { c1, c2, c4 } = cumulants(spec, T);
-  const events = eventExtent(spec, T);
-  const half = settings.width * Math.sqrt(c2 + Math.sqrt(c4)) + jumpExtent(spec, T) + events;
-  const parts = jumpSplitParts(spec, T, settings, withSlope, events, { c1, half });
+  const cum = cumulants(spec, T);
+  const { a, b } = lawRange(spec, T, settings.tailMass, cum);
+  const parts = jumpSplitParts(spec, T, settings, withSlope, { a, b });
   if (parts) {
     return {
       // the range a single series would take: where the law lives, for callers that grid it
-      a: c1 - half,
-      b: c1 + half,
+      a,
+      b,
       terms: parts.reduce((sum, p) => sum + p.series.terms, 0),
       u: new Float64Array(0),
       coef: new Float64Array(0),
@@ -115,20 +82,18 @@ export function prepareCos(
       mean: 1,
       meanSlope: 0,
       expiry: T,
-      variance: c2,
+      variance: cum.c2,
       diffusionVariance: diffusionVariance(spec, T),
       parts,
     };
   }
-  const a = c1 - half;
-  const b = c1 + half;
   const series = cosSeries(a, b, settings, withSlope, (wr, wi, re, im, count, slope) =>
     logCharacteristic(spec, T, wr, wi, re, im, count, slope),
   );
   return {
     ...series,
     expiry: T,
-    variance: c2,
+    variance: cum.c2,
     diffusionVariance: diffusionVariance(spec, T),
     parts: null,
   };

@@ -77,7 +77,7 @@ export interface CalibrationResult {
   anchorPenalty?: number;
 }
 
-const TRIAL_COS: CosSettings = { ...DEFAULT_COS_SETTINGS, width: 10, tailTolerance: 1e-11 };
+const TRIAL_COS: CosSettings = { ...DEFAULT_COS_SETTINGS, tailMass: 1e-11, tailTolerance: 1e-11 };
 
 /** Model implied vols at every quote, one COS preparation per expiry. */
 export function modelVols(

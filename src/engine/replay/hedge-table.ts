@@ -37,7 +37,7 @@ export interface HedgeTable {
 /** The bump of σ for the vega of a constant-variance model (central difference). */
 const VEGA_BUMP = 0.01;
 
-const HEDGE_COS = { ...DEFAULT_COS_SETTINGS, width: 10, tailTolerance: 1e-12 };
+const HEDGE_COS = { ...DEFAULT_COS_SETTINGS, tailMass: 1e-12, tailTolerance: 1e-12 };
 
 export function buildHedgeTable(
   market: Market,
