@@ -108,8 +108,26 @@ export function jumpExposure(
   };
 }
 
-/** Points of the day's log-move grid. */
-const DAY_POINTS = 1601;
+/**
+ * Bins of the day's log-move: a fine grid over the diffusion's body, ±BODY_SDS of its standard
+ * deviation, where a book's 1 % quantile usually falls, and a coarser one over the whole range
+ * the jumps reach.
+ */
+const BODY_POINTS = 1201;
+const RANGE_POINTS = 401;
+const BODY_SDS = 10;
+
+function dayEdges(a: number, b: number, centre: number, sd: number): Float64Array {
+  const lo = Math.max(a, centre - BODY_SDS * sd);
+  const hi = Math.min(b, centre + BODY_SDS * sd);
+  const edges: number[] = [];
+  for (let i = 0; i <= RANGE_POINTS; i++) {
+    const e = a + ((b - a) * i) / RANGE_POINTS;
+    if (e < lo || e > hi) edges.push(e);
+  }
+  for (let i = 0; i <= BODY_POINTS; i++) edges.push(lo + ((hi - lo) * i) / BODY_POINTS);
+  return Float64Array.from(edges).sort();
+}
 
 function oneDayTail(
   market: Market,
@@ -126,10 +144,8 @@ function oneDayTail(
   const quiet: ModelSpec = { diffusion: spec.diffusion, jumps: NO_JUMPS, events: spec.events };
   const shift = lambdaH * (jumpSummary(spec.jumps)?.meanMove ?? 0);
   const noJump = prepareCos(quiet, h);
-  const n = DAY_POINTS;
-  const edges = new Float64Array(n + 1);
-  const step = (full.b - full.a) / n;
-  for (let i = 0; i <= n; i++) edges[i] = full.a + i * step;
+  const edges = dayEdges(full.a, full.b, -shift, Math.sqrt(noJump.variance));
+  const n = edges.length - 1;
   const cdf = (prep: typeof full, ks: Float64Array) => {
     const out = new Float64Array(ks.length);
     const scratch = () => new Float64Array(ks.length);
@@ -144,7 +160,7 @@ function oneDayTail(
   const growth = forwardPrice(market, h) / market.spot;
   const centres = Array.from(
     { length: n },
-    (_, i) => growth * Math.exp(full.a + (i + 0.5) * step) - 1,
+    (_, i) => growth * Math.exp(0.5 * (edges[i] + edges[i + 1])) - 1,
   );
   const pnl = legValuesAtMovesSticky(market, model, positions, centres).map(
     (row) => sumRow(row) - now,
@@ -160,7 +176,6 @@ function oneDayTail(
   let mass = 0;
   let sum = 0;
   let quietSum = 0;
-  let var99 = bins[0]?.pnl ?? 0;
   for (const b of bins) {
     if (mass >= tail) break;
     const take = Math.min(b.all, tail - mass);
@@ -169,12 +184,33 @@ function oneDayTail(
     mass += take;
     sum += take * b.pnl;
     quietSum += part * Math.min(b.quiet, b.all) * b.pnl;
-    var99 = b.pnl;
   }
+  const var99 = binQuantile(bins, tail);
   const es99 = mass > 0 ? sum / mass : 0;
   return {
     var99,
     es99,
     jumpShare: sum < 0 ? Math.min(1, Math.max(0, 1 - quietSum / sum)) : null,
   };
+}
+
+/**
+ * The P&L at cumulative probability `level` over bins sorted by P&L, each bin's mass centred on
+ * its P&L and the quantile drawn linearly between those centres, so that it moves smoothly with
+ * the grid rather than by whole bins.
+ */
+function binQuantile(bins: readonly { pnl: number; all: number }[], level: number): number {
+  let before = 0;
+  let prev: { at: number; pnl: number } | null = null;
+  for (const b of bins) {
+    if (b.all <= 0) continue;
+    const at = before + 0.5 * b.all;
+    if (at >= level) {
+      if (!prev) return b.pnl;
+      return prev.pnl + ((b.pnl - prev.pnl) * (level - prev.at)) / (at - prev.at);
+    }
+    prev = { at, pnl: b.pnl };
+    before += b.all;
+  }
+  return prev?.pnl ?? 0;
 }
