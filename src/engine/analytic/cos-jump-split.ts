@@ -138,7 +138,10 @@ export function jumpSplitParts(
   quietSeries.mean = Math.exp(shift);
   quietSeries.meanSlope = -lambdaNow * kbar * quietSeries.mean;
 
-  const jumpCf = jumpPartCf(spec, T, quietCf, p0, pJump, lambdaNow);
+  const jumpCf =
+    j.type === 'lognormal'
+      ? lognormalJumpPartCf(quietCf, j, lambdaT, lambdaNow, p0, pJump)
+      : jumpPartCf(spec, T, quietCf, p0, pJump, lambdaNow);
   const jumpSeries = cosSeries(
     single.a,
     single.b,
@@ -215,6 +218,62 @@ function jumpPartCf(
       const ni = fr * si + fi * sr - (qr * s0i + qi * s0r);
       slope.re[k] = (nr * zr + ni * zi) / zm - weightRate;
       slope.im[k] = (ni * zr - nr * zi) / zm;
+    }
+  };
+}
+
+/**
+ * The N ≥ 1 part for Merton/Bates jumps, with one jump-free evaluation: with E(w) = e^{μw + ½δ²w²},
+ * φ = φ_q·e^{Λ(E − 1)} (φ_q the shifted jump-free function), so the part's characteristic
+ * function is φ_q·(e^{ΛE} − 1)·e^{−Λ}/(1 − e^{−Λ}). e^{ΛE} − 1 is formed with expm1, free of the
+ * cancellation φ − e^{−Λ}φ_q suffers where ΛE is small. Its time slope is φ_q's plus
+ * λ(0)·[E·e^{ΛE}/(e^{ΛE} − 1) − 1 − e^{−Λ}/(1 − e^{−Λ})].
+ */
+function lognormalJumpPartCf(
+  quietCf: LogCf,
+  jl: Extract<JumpLaw, { type: 'lognormal' }>,
+  lambdaT: number,
+  lambdaNow: number,
+  p0: number,
+  pJump: number,
+): LogCf {
+  const mu = jl.jumpMean;
+  const hv = 0.5 * jl.jumpStdev * jl.jumpStdev;
+  const logScale = -lambdaT - Math.log(pJump);
+  const weightRate = lambdaNow * (1 + p0 / pJump);
+  return (wr, wi, re, im, count, slope) => {
+    quietCf(wr, wi, re, im, count, slope);
+    for (let k = 0; k < count; k++) {
+      const a = wr[k];
+      const b = wi[k];
+      // ΛE = Λe^x, x = μw + ½δ²w²
+      const xr = mu * a + hv * (a * a - b * b);
+      const xi = mu * b + 2 * hv * a * b;
+      const em = lambdaT * Math.exp(xr);
+      const zr = em * Math.cos(xi);
+      const zi = em * Math.sin(xi);
+      // e^z − 1
+      const cz = Math.cos(zi);
+      const sz = Math.sin(zi);
+      const sHalf = Math.sin(0.5 * zi);
+      const ez = Math.exp(zr);
+      const mr = Math.expm1(zr) * cz - 2 * sHalf * sHalf;
+      const mi = ez * sz;
+      const mm = mr * mr + mi * mi;
+      re[k] += 0.5 * Math.log(mm) + logScale;
+      im[k] += Math.atan2(mi, mr);
+      if (!slope) continue;
+      if (mm === 0) {
+        // E underflowed: the term is 0 and so is what its slope carries
+        slope.re[k] = 0;
+        slope.im[k] = 0;
+        continue;
+      }
+      // E·e^z/(e^z − 1), with E = z/Λ
+      const pr = (ez * (zr * cz - zi * sz)) / lambdaT;
+      const pi = (ez * (zr * sz + zi * cz)) / lambdaT;
+      slope.re[k] += (lambdaNow * (pr * mr + pi * mi)) / mm - weightRate;
+      slope.im[k] += (lambdaNow * (pi * mr - pr * mi)) / mm;
     }
   };
 }
