@@ -55,6 +55,29 @@ export const LOG_AXIS = {
   showexponent: 'all',
 } as const;
 
+/**
+ * `LOG_AXIS` labelled every n decades, n the fewest that keeps the labels about 22 px apart on
+ * an axis of that many pixels spanning [min, max].
+ */
+export function logAxisFor(min: number, max: number, pixels: number) {
+  const decades = min > 0 && max > min ? Math.log10(max / min) : 1;
+  const labels = Math.max(1, Math.floor(pixels / 22));
+  return { ...LOG_AXIS, dtick: Math.max(1, Math.ceil(decades / labels)) };
+}
+
+/** A theme colour (`rgb(r,g,b)` or `#rrggbb`) at opacity `alpha`, for fills the legend shows. */
+export function withAlpha(color: string, alpha: number): string {
+  const rgb = color.match(/^rgb\((.*)\)$/);
+  if (rgb) return `rgba(${rgb[1]},${alpha})`;
+  const hex = color.match(/^#([0-9a-f]{2})([0-9a-f]{2})([0-9a-f]{2})$/i);
+  if (hex)
+    return `rgba(${hex
+      .slice(1)
+      .map((h) => parseInt(h, 16))
+      .join(',')},${alpha})`;
+  return color;
+}
+
 /** A horizontal legend under the plot (or above it), left-aligned, in the app's small type. */
 export function legendRow(where: 'above' | 'below' = 'below', offset = 0.2) {
   return {

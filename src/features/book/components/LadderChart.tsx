@@ -1,9 +1,20 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import type { SetRevaluation } from '../../../engine/book';
-import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
+import {
+  chartFrame,
+  chartTheme,
+  legendRow,
+  logAxisFor,
+  withAlpha,
+} from '../../../components/chart-theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
+
+const HEIGHT = 480;
+const MARGIN = { l: 70, r: 12, t: 16, b: 44 };
+/** the probability panel's share of the plot's height, in pixels: its log labels are spaced by it */
+const PROBABILITY_PIXELS = 0.26 * (HEIGHT - MARGIN.t - MARGIN.b);
 
 /**
  * The gap ladder over the jump law: the base model, sticky strike, sticky strike with the
@@ -98,11 +109,12 @@ export function LadderChart({
         x,
         y: result.jumpPerWeek.map((p) => (p > 0 ? p : null)),
         name: 'jump within a week',
-        marker: { color: t.teal, opacity: 0.45 },
+        marker: { color: withAlpha(t.teal, 0.45) },
         xaxis: 'x',
         yaxis: 'y2',
       },
     );
+    const shown = [...result.jumpPerDay, ...result.jumpPerWeek].filter((p) => p > 0);
     const axis = {
       gridcolor: t.grid,
       zerolinecolor: t.muted,
@@ -111,8 +123,8 @@ export function LadderChart({
     };
     const layout: Partial<Layout> = {
       ...chartFrame(t, 12),
-      height: 480,
-      margin: { l: 70, r: 12, t: 16, b: 44 },
+      height: HEIGHT,
+      margin: MARGIN,
       barmode: 'overlay',
       legend: legendRow('above', 0.02),
       xaxis: {
@@ -122,7 +134,12 @@ export function LadderChart({
         ticksuffix: '%',
       },
       yaxis: { ...axis, domain: [0.36, 1], title: { text: 'book P&L' } },
-      yaxis2: { ...axis, ...LOG_AXIS, domain: [0, 0.26], title: { text: 'probability' } },
+      yaxis2: {
+        ...axis,
+        ...logAxisFor(Math.min(...shown), Math.max(...shown), PROBABILITY_PIXELS),
+        domain: [0, 0.26],
+        title: { text: 'probability' },
+      },
     };
     return { data, layout };
   }, [result, scenarioIndex, theme]);
