@@ -6,7 +6,7 @@
 import { priceOptions } from '../../src/engine/analytic';
 import { DEFAULT_BATES, type Market, type Model } from '../../src/engine/core';
 import { surfaceOptions } from './surface-options';
-import { fmt, medianMs } from './timing';
+import { fmt, pairedMedianMs } from './timing';
 
 const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
 const bates: Model = DEFAULT_BATES;
@@ -20,15 +20,19 @@ const svcj: Model = {
 const options = surfaceOptions(market);
 
 export function benchSvcj(): Record<string, string>[] {
-  const batesMs = medianMs(() => priceOptions(market, bates, options), 15);
-  const svcjMs = medianMs(() => priceOptions(market, svcj, options), 15);
+  const timed = pairedMedianMs(
+    () => priceOptions(market, bates, options),
+    () => priceOptions(market, svcj, options),
+  );
+  const batesMs = timed.a;
+  const svcjMs = timed.b;
   return [
     { case: '328 options with Greeks: Bates', value: `${fmt(batesMs, 3)} ms`, target: '' },
     { case: '328 options with Greeks: SVCJ', value: `${fmt(svcjMs, 3)} ms`, target: '' },
     {
       case: 'ratio (SVCJ / Bates)',
-      value: `${fmt(svcjMs / batesMs, 3)}×`,
-      target: `at most 1.5×: ${svcjMs / batesMs <= 1.5 ? 'met' : 'MISSED'}`,
+      value: `${fmt(timed.ratio, 3)}×`,
+      target: `at most 1.5×: ${timed.ratio <= 1.5 ? 'met' : 'MISSED'}`,
     },
   ];
 }

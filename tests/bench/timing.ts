@@ -12,3 +12,46 @@ export function medianMs(fn: () => unknown, runs: number, warmup = Math.min(5, r
 }
 
 export const fmt = (x: number, digits = 3) => x.toPrecision(digits);
+
+/**
+ * Two functions timed in alternation, so that the machine's load and the JIT's warm-up fall on
+ * both alike: per round a batch of each, then the medians of their per-call times and the
+ * median of the per-round ratios b/a.
+ */
+export function pairedMedianMs(
+  a: () => unknown,
+  b: () => unknown,
+  rounds = 31,
+  batch = 4,
+  warmup = 20,
+): { a: number; b: number; ratio: number } {
+  for (let i = 0; i < warmup; i++) {
+    a();
+    b();
+  }
+  const timeBatch = (fn: () => unknown) => {
+    const t0 = performance.now();
+    for (let i = 0; i < batch; i++) fn();
+    return (performance.now() - t0) / batch;
+  };
+  const as: number[] = [];
+  const bs: number[] = [];
+  const ratios: number[] = [];
+  for (let r = 0; r < rounds; r++) {
+    // alternate which goes first, so neither always follows the other's garbage
+    let ta: number;
+    let tb: number;
+    if (r % 2 === 0) {
+      ta = timeBatch(a);
+      tb = timeBatch(b);
+    } else {
+      tb = timeBatch(b);
+      ta = timeBatch(a);
+    }
+    as.push(ta);
+    bs.push(tb);
+    ratios.push(tb / ta);
+  }
+  const median = (xs: number[]) => [...xs].sort((x, y) => x - y)[Math.floor(xs.length / 2)];
+  return { a: median(as), b: median(bs), ratio: median(ratios) };
+}
