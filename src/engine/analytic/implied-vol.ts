@@ -10,6 +10,8 @@ import { normalisedBlack, normalisedOtmCall } from './black';
 import { normInv } from './normal';
 
 const INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
+/** Relative Householder step below which the next iterate is taken as converged. */
+const STEP_CONVERGED = 1e-8;
 
 export type ImpliedVolFailure = 'below-intrinsic' | 'above-maximum' | 'too-small' | 'bad-input';
 
@@ -79,6 +81,10 @@ export function normalisedImpliedSigma(x: number, beta: number): number {
     if (Number.isFinite(next) && Math.abs(next - s) <= 4e-16 * s) {
       return next > lo && next < hi ? next : s;
     }
+    // a third-order step this small leaves an error of about its cube: next is the root to
+    // rounding, and another evaluation would only confirm it
+    if (Number.isFinite(next) && Math.abs(next - s) <= STEP_CONVERGED * s && next > lo && next < hi)
+      return next;
     if (!(next > lo && next < hi) || !Number.isFinite(next)) {
       next = Number.isFinite(hi) ? (lo > 0 ? Math.sqrt(lo * hi) : 0.5 * hi) : Math.max(2 * s, 1);
     }
