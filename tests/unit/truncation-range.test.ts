@@ -4,6 +4,8 @@
  *   numerically (classical Runge–Kutta), for the closed-form explosion time and exponent
  *   (Andersen & Piterbarg 2007, "Moment explosions in stochastic volatility models");
  * - the normal law's exact tails (Black-Scholes), for the bound's direction and tightness;
+ * - the Lewis (2001) integral, an independent Fourier route, where the range falls back to the
+ *   cumulants (moments above 1 explode before T; QuantLib's engine gives negative prices there);
  * - QuantLib's AnalyticHestonEngine (`@quantlib/ql`, adaptive Gauss–Lobatto to 1e-13), for
  *   prices in the fat tail that the former symmetric range cut off: positive ρ at one year, and a
  *   large vol of vol.
@@ -15,7 +17,7 @@ import {
   hestonMomentExponent,
   momentIsFinite,
 } from '../../src/engine/analytic/truncation-range';
-import { modelSpec, normCdf, priceOptions } from '../../src/engine/analytic';
+import { cumulants, lewisPrice, modelSpec, normCdf, priceOptions } from '../../src/engine/analytic';
 import { forwardPrice, type Market, type Model } from '../../src/engine/core';
 import { quantlibHestonPrices } from '../support/quantlib';
 
@@ -134,6 +136,32 @@ describe("the range from Chernoff's bound", () => {
         expect(above).toBeGreaterThan(eps / 100);
       }
     }
+  });
+
+  it('falls back to the cumulant range where every moment above 1 explodes before T, and still prices (Lewis integral)', () => {
+    // ρ = 0.95, ξ = 1.5: E[S_T^1.05] is infinite after about 7 years
+    const model = { kind: 'heston', ...heston({ kappa: 0.5, volOfVol: 1.5, rho: 0.95 }) } as Model;
+    const spec = modelSpec(model);
+    const T = 10;
+    expect(momentIsFinite(spec, 1.05, T)).toBe(false);
+    const { c1, c2, c4 } = cumulants(spec, T);
+    const half = 12 * Math.sqrt(c2 + Math.sqrt(c4));
+    const { a, b } = lawRange(spec, T, 1e-14);
+    expect(a).toBeCloseTo(c1 - half, 12);
+    expect(b).toBeCloseTo(c1 + half, 12);
+    const market: Market = { spot: 100, rate: 0.03, dividendYield: 0.01 };
+    const strikes = [50, 80, 100, 130, 200];
+    const types = strikes.map((K) => (K < 100 ? ('put' as const) : ('call' as const)));
+    const ours = priceOptions(
+      market,
+      model,
+      strikes.map((strike, i) => ({ type: types[i], strike, expiry: T })),
+    );
+    strikes.forEach((K, i) =>
+      expect(Math.abs(ours[i].price - lewisPrice(market, model, types[i], K, T))).toBeLessThan(
+        1e-9 * 100,
+      ),
+    );
   });
 
   it("is longer on Heston's fat side, whichever way ρ points", () => {
