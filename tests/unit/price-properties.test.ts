@@ -92,12 +92,14 @@ describe('prices respect no-arbitrage for any valid parameters', () => {
           const K = F * Math.exp(k);
           const call = priceOptions(mk, m, [{ type: 'call', strike: K, expiry: T }])[0].price;
           const put = lewisPrice(mk, m, 'put', K, T);
+          // the COS range holds each tail by Chernoff's bound (the former symmetric range
+          // missed by up to 1e-10 of spot where Heston's fat tail points up)
           expect(Math.abs(call - put - discountFactor(mk, T) * (F - K))).toBeLessThan(
-            1e-8 * mk.spot,
+            1e-11 * mk.spot,
           );
         },
       ),
-      { numRuns: 40, seed: 7 },
+      { numRuns: 100, seed: 7 },
     );
   });
 });
