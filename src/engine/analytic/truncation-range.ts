@@ -105,7 +105,7 @@ const CANDIDATES = 16;
  */
 export function chernoffRange(
   logMoment: LogMoment,
-  isFinite: (p: number) => boolean,
+  finiteAt: (p: number) => boolean,
   c2: number,
   tailMass: number,
 ): TruncationRange | null {
@@ -113,8 +113,8 @@ export function chernoffRange(
   const gaussianBest = Math.sqrt((-2 * logEps) / c2);
   // outward from the gaussian optimum's 1/1.5^11: fat tails want a smaller p than a normal law
   const first = gaussianBest / CANDIDATE_RATIO ** (CANDIDATES - 5);
-  const lower = candidates((i) => -first * CANDIDATE_RATIO ** i, isFinite);
-  const upper = candidates((i) => 1 + first * CANDIDATE_RATIO ** i, isFinite);
+  const lower = candidates((i) => -first * CANDIDATE_RATIO ** i, finiteAt);
+  const upper = candidates((i) => 1 + first * CANDIDATE_RATIO ** i, finiteAt);
   const p = new Float64Array(lower.length + upper.length);
   p.set(lower);
   p.set(upper, lower.length);
@@ -131,11 +131,11 @@ export function chernoffRange(
 }
 
 /** The candidates p(0), p(1), … up to the first outside the moments' domain. */
-function candidates(at: (i: number) => number, isFinite: (p: number) => boolean): number[] {
+function candidates(at: (i: number) => number, finiteAt: (p: number) => boolean): number[] {
   const out: number[] = [];
   for (let i = 0; i < CANDIDATES; i++) {
     const p = at(i);
-    if (!isFinite(p)) break;
+    if (!finiteAt(p)) break;
     out.push(p);
   }
   return out;

@@ -1,7 +1,13 @@
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import { FAN_PERCENTILES, type HistogramSpec, type PathsView } from '../../../engine/paths';
-import { chartFrame, chartTheme, legendRow, LOG_AXIS } from '../../../components/chart-theme';
+import {
+  chartFrame,
+  chartTheme,
+  legendRow,
+  LOG_AXIS,
+  withAlpha,
+} from '../../../components/chart-theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 
@@ -36,7 +42,7 @@ function fanTraces(times: number[], rows: number[][], color: string): Data[] {
       x,
       y: rows[hi],
       fill: 'tonexty',
-      fillcolor: color.replace('rgb(', 'rgba(').replace(')', `,${alpha})`),
+      fillcolor: withAlpha(color, alpha),
       line: { width: 0 },
       name: `${100 * FAN_PERCENTILES[lo]}–${100 * FAN_PERCENTILES[hi]} %`,
     } as Data);
