@@ -67,6 +67,18 @@ describe('Black-Scholes prices and Greeks', () => {
   });
 });
 
+describe('normalised Black at extreme total vol', () => {
+  it('tends to its bound e^{x/2} as σ√T grows, where φ at the centre underflows (common practice: a call is worth at most the forward)', () => {
+    for (const x of [-0.3, -2]) {
+      for (const s of [80, 200]) {
+        const b = normalisedBlack(x, s, 1);
+        // b = e^{x/2}Φ(x/s + s/2) − e^{−x/2}Φ(x/s − s/2), both Φ within 1e-300 of 1 and 0
+        expect(Math.abs(b / Math.exp(0.5 * x) - 1), `x=${x} s=${s}`).toBeLessThan(1e-15);
+      }
+    }
+  });
+});
+
 describe('normal distribution', () => {
   it('is symmetric and its inverse round-trips to a few ulps from 1e-300 to 1 − 1e-12', () => {
     for (const x of [-37, -20, -8, -3, -1, -0.1, 0, 0.4, 2, 6]) {

@@ -1,5 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { impliedVol, lewisPrice, priceOptions } from '../../src/engine/analytic';
+import {
+  cosStrip,
+  impliedVol,
+  impliedVolFromOtm,
+  lewisPrice,
+  modelSpec,
+  normalisedImpliedSigma,
+  normalisedOtmCall,
+  prepareCos,
+  priceOptions,
+  stripImpliedVols,
+} from '../../src/engine/analytic';
 import { discountFactor, forwardPrice, type Market, type Model } from '../../src/engine/core';
 import { CASE_HESTON, MODEL_CASES } from './helpers';
 
@@ -54,4 +65,44 @@ describe('implied vols within 1e-6 of a high-precision reference', () => {
       }
     });
   }
+});
+
+// A root search may start from a neighbouring strike's vol. Whatever the start, the root is the
+// Black-Scholes formula's own (Black 1976, in Jäckel's normalised form).
+describe('implied vols do not depend on where the root search starts', () => {
+  it('guesses from 1/1000 to 1000 times the root, either side of the inflection point', () => {
+    for (const x of [-2, -0.3, -0.01, 0]) {
+      for (const s of [0.005, 0.05, 0.3, 1.5, 6]) {
+        const beta = normalisedOtmCall(x, s);
+        if (!(beta > 1e-200)) continue; // e.g. 2 log-units out at s = 0.005: nothing to invert
+        const cold = normalisedImpliedSigma(x, beta);
+        expect(Math.abs(cold / s - 1), `x=${x} s=${s}`).toBeLessThan(1e-12);
+        // the root is set to about ε·b/(s·∂b/∂s) relative: wider where b(s) flattens
+        const vega = Math.exp(-0.5 * ((x / s) ** 2 + (s / 2) ** 2)) / Math.sqrt(2 * Math.PI);
+        const tolerance = Math.max(4e-15, (8 * Number.EPSILON * beta) / (s * vega));
+        for (const factor of [1e-3, 0.5, 0.99, 1.01, 2, 8, 1e3]) {
+          const warm = normalisedImpliedSigma(x, beta, s * factor);
+          expect(Math.abs(warm / cold - 1), `x=${x} s=${s} ×${factor}`).toBeLessThan(tolerance);
+        }
+      }
+    }
+  });
+
+  it('a strip solved strike by strike from its neighbours matches one solved cold', () => {
+    for (const model of Object.values(MODELS)) {
+      for (const T of [1 / 365, 0.25, 10]) {
+        const sd = 0.22 * Math.sqrt(T);
+        const ks = Float64Array.from({ length: 41 }, (_, i) => sd * (-3.5 + (7 * i) / 40));
+        const n = ks.length;
+        const [call, put, cdf, density] = Array.from({ length: 4 }, () => new Float64Array(n));
+        cosStrip(prepareCos(modelSpec(model), T), ks, call, put, cdf, density);
+        const strip = stripImpliedVols(call, put, ks, T);
+        ks.forEach((k, j) => {
+          const cold = impliedVolFromOtm(k < 0 ? put[j] : call[j], k, T);
+          expect(strip[j] === null, `T=${T} k=${k}`).toBe(cold === null);
+          if (cold !== null) expect(Math.abs(strip[j]! / cold - 1)).toBeLessThan(4e-15);
+        });
+      }
+    }
+  });
 });

@@ -16,7 +16,13 @@ export function normalisedOtmCall(x: number, s: number): number {
   const t = 0.5 * s;
   // e^{x/2} φ(h + t) = e^{−x/2} φ(h − t) = φ_c; b = φ_c [R(−h − t) − R(−h + t)]
   const logPhiC = -0.5 * (h * h + t * t);
-  if (logPhiC < -745) return 0;
+  if (logPhiC < -745) {
+    // φ_c underflows: far out of the money (|h| > t) the price is below any double; at a vol so
+    // large that t > |h| the call is near its bound e^{x/2} and the direct form has no cancellation
+    return t > -h
+      ? Math.max(0, Math.exp(0.5 * x) * normCdf(h + t) - Math.exp(-0.5 * x) * normCdf(h - t))
+      : 0;
+  }
   const phiC = Math.exp(logPhiC) * INV_SQRT_2PI;
   // For s ≤ 1 the difference is summed as a series in t (no cancellation for small s).
   const diff =

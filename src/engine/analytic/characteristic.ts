@@ -142,6 +142,9 @@ function addScheduledMove(
   }
 }
 
+/** Where SVCJ's jump term writes its four values for one w (each is read before the next call). */
+const JUMP_TERM_OUT = new Float64Array(4);
+
 /**
  * Heston in the "little Heston trap" form (Albrecher, Mayer, Schoutens & Tistaert 2007), with
  * the ξ² divisions cancelled analytically so ξ → 0 (and ξ = 0) is exact:
@@ -162,7 +165,7 @@ function hestonLogCf(
   jumpRate: PriceVarianceRate | null = null,
 ): void {
   const { v0, kappa, theta, volOfVol: xi, rho } = h;
-  const extra = new Float64Array(4);
+  const extra = JUMP_TERM_OUT;
   const xi2 = xi * xi;
   const kt = kappa * theta;
   for (let j = 0; j < count; j++) {
@@ -199,9 +202,9 @@ function hestonLogCf(
     // s = β + d and its inverse
     const sr = br + dr;
     const si = bi + di;
-    const sm = sr * sr + si * si;
-    const isr = sr / sm;
-    const isi = -si / sm;
+    const invSm = 1 / (sr * sr + si * si);
+    const isr = sr * invSm;
+    const isi = -si * invSm;
     // m = −q/s
     const mr = -(qr * isr - qi * isi);
     const mi = -(qr * isi + qi * isr);
@@ -228,20 +231,20 @@ function hestonLogCf(
     // den = 1 − g e
     const denr = 1 - (gr * er - gi * ei);
     const deni = -(gr * ei + gi * er);
-    const dm = denr * denr + deni * deni;
+    const invDm = 1 / (denr * denr + deni * deni);
     // D = m · om / den
     const nr = mr * omr - mi * omi;
     const ni = mr * omi + mi * omr;
-    const Dr = (nr * denr + ni * deni) / dm;
-    const Di = (ni * denr - nr * deni) / dm;
+    const Dr = (nr * denr + ni * deni) * invDm;
+    const Di = (ni * denr - nr * deni) * invDm;
     // zHat = gHat · om / (1 − g)
     const ogr = 1 - gr;
     const ogi = -gi;
-    const ogm = ogr * ogr + ogi * ogi;
+    const invOgm = 1 / (ogr * ogr + ogi * ogi);
     const tr = ghr * omr - ghi * omi;
     const ti = ghr * omi + ghi * omr;
-    const zhr = (tr * ogr + ti * ogi) / ogm;
-    const zhi = (ti * ogr - tr * ogi) / ogm;
+    const zhr = (tr * ogr + ti * ogi) * invOgm;
+    const zhi = (ti * ogr - tr * ogi) * invOgm;
     // L = log1p(ξ² zHat) / (ξ² zHat), so (2/ξ²) log1p(ξ² zHat) = 2 zHat L
     const ur = xi2 * zhr;
     const ui = xi2 * zhi;
@@ -254,8 +257,9 @@ function hestonLogCf(
     } else {
       const lr = 0.5 * Math.log1p(2 * ur + um);
       const li = Math.atan2(ui, 1 + ur);
-      Lr = (lr * ur + li * ui) / um;
-      Li = (li * ur - lr * ui) / um;
+      const invUm = 1 / um;
+      Lr = (lr * ur + li * ui) * invUm;
+      Li = (li * ur - lr * ui) * invUm;
     }
     const logr = 2 * (zhr * Lr - zhi * Li);
     const logi = 2 * (zhr * Li + zhi * Lr);
@@ -312,11 +316,14 @@ function addLognormalJumps(
     const b = wi[j];
     const er = mu * a + hv * (a * a - b * b);
     const ei = mu * b + hv * 2 * a * b;
-    const m = Math.exp(er);
-    // e^{e} − 1, with expm1 for the real part when the imaginary part is small
+    // e^{e} − 1 = (e^{er} − 1)cos ei − (1 − cos ei) + i e^{er} sin ei, from expm1 and the half
+    // angle so that neither part cancels when e is small
+    const em1 = Math.expm1(er);
     const sHalf = Math.sin(0.5 * ei);
-    const xr = Math.expm1(er) * Math.cos(ei) - 2 * sHalf * sHalf;
-    const xi = m * Math.sin(ei);
+    const cHalf = Math.cos(0.5 * ei);
+    const twoS2 = 2 * sHalf * sHalf;
+    const xr = em1 * (1 - twoS2) - twoS2;
+    const xi = (1 + em1) * (2 * sHalf * cHalf);
     outRe[j] += lt * (xr - a * kbar);
     outIm[j] += lt * (xi - b * kbar);
     if (rate) {

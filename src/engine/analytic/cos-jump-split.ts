@@ -13,7 +13,7 @@
  */
 import { logCharacteristic, type ModelSpec, type TimeSlopeOut } from './characteristic';
 import { cumulants } from './cumulants';
-import { cosSeries, type CosSeries, type LogCf } from './cos-series';
+import { cosSeries, type CosSeries, type Envelope, type LogCf } from './cos-series';
 import type { CosSettings } from './cos';
 import { lawRange } from './cos-range';
 import type { TruncationRange } from './truncation-range';
@@ -146,10 +146,15 @@ export function jumpSplitParts(
     single.a,
     single.b,
     // the part's error counts at its weight: it may stop its series sooner
-    { ...settings, tailTolerance: Math.min(1e-6, tolerance / pJump) },
+    {
+      ...settings,
+      tailTolerance: Math.min(1e-6, tolerance / pJump),
+      densityTolerance: Math.min(1e-2, settings.densityTolerance / pJump),
+    },
     withSlope,
     jumpCf,
     PART_BLOCK,
+    j.type === 'lognormal' ? lognormalPartEnvelope(j.jumpStdev, lambdaT, p0, pJump) : undefined,
   );
   // E[e^Y | N ≥ 1] = (1 − e^{−Λ}·e^{−Λκ̄})/(1 − e^{−Λ}), so that the two parts' means average to 1
   const quietMass = p0 * quietSeries.mean; // e^{−Λ(1 + κ̄)}
@@ -164,6 +169,30 @@ export function jumpSplitParts(
 }
 
 /**
+ * A bound on the Merton/Bates N ≥ 1 part's |characteristic function| (see
+ * `lognormalJumpPartCf`): |φ_q| ≤ 1 and |e^{ΛE} − 1| ≤ e^{Λ|E|} − 1 with |E(iu)| = e^{−δ²u²/2},
+ * so |ψ(u)| ≤ e^{−Λ}(e^{Λe^{−δ²u²/2}} − 1)/(1 − e^{−Λ}), which is 1 at u = 0 and falls like
+ * a Gaussian.
+ */
+export function lognormalPartEnvelope(
+  jumpStdev: number,
+  lambdaT: number,
+  p0: number,
+  pJump: number,
+): Envelope {
+  const hv = 0.5 * jumpStdev * jumpStdev;
+  return (u) => (p0 * Math.expm1(lambdaT * Math.exp(-hv * u * u))) / pJump;
+}
+
+/** The jump-free law's values beside the whole law's, kept between calls and grown on demand. */
+const quietScratch = (size: number) => ({
+  re: new Float64Array(size),
+  im: new Float64Array(size),
+  slope: { re: new Float64Array(size), im: new Float64Array(size) } as TimeSlopeOut,
+});
+let QUIET_SCRATCH = quietScratch(64);
+
+/**
  * ln of the N ≥ 1 part's characteristic function, (φ − e^{−Λ}φ₀)/(1 − e^{−Λ}), and its time
  * slope: ∂τ(φ − e^{−Λ}φ₀) = φ·∂τ ln φ − e^{−Λ}φ₀·(∂τ ln φ₀ − λ(0)), divided by the difference,
  * less ∂τ ln(1 − e^{−Λ}) = λ(0)e^{−Λ}/(1 − e^{−Λ}). Only e^{ln φ} is used, so any branch will do.
@@ -176,19 +205,11 @@ function jumpPartCf(
   pJump: number,
   lambdaNow: number,
 ): LogCf {
-  let size = 0;
-  let qRe = new Float64Array(0);
-  let qIm = new Float64Array(0);
-  let qSlope: TimeSlopeOut = { re: qRe, im: qIm };
   const logWeight = Math.log(pJump);
   const weightRate = (lambdaNow * p0) / pJump;
   return (wr, wi, re, im, count, slope) => {
-    if (count > size) {
-      size = count;
-      qRe = new Float64Array(size);
-      qIm = new Float64Array(size);
-      qSlope = { re: new Float64Array(size), im: new Float64Array(size) };
-    }
+    if (QUIET_SCRATCH.re.length < count) QUIET_SCRATCH = quietScratch(count);
+    const { re: qRe, im: qIm, slope: qSlope } = QUIET_SCRATCH;
     logCharacteristic(spec, T, wr, wi, re, im, count, slope);
     quietCf(wr, wi, qRe, qIm, count, slope ? qSlope : undefined);
     for (let k = 0; k < count; k++) {
@@ -252,12 +273,15 @@ function lognormalJumpPartCf(
       const em = lambdaT * Math.exp(xr);
       const zr = em * Math.cos(xi);
       const zi = em * Math.sin(xi);
-      // e^z − 1
-      const cz = Math.cos(zi);
-      const sz = Math.sin(zi);
+      // e^z − 1, from expm1 and the half angle so that neither part cancels when z is small
       const sHalf = Math.sin(0.5 * zi);
-      const ez = Math.exp(zr);
-      const mr = Math.expm1(zr) * cz - 2 * sHalf * sHalf;
+      const cHalf = Math.cos(0.5 * zi);
+      const twoS2 = 2 * sHalf * sHalf;
+      const cz = 1 - twoS2;
+      const sz = 2 * sHalf * cHalf;
+      const ezm1 = Math.expm1(zr);
+      const ez = 1 + ezm1;
+      const mr = ezm1 * cz - twoS2;
       const mi = ez * sz;
       const mm = mr * mr + mi * mi;
       re[k] += 0.5 * Math.log(mm) + logScale;

@@ -47,6 +47,13 @@ function eventExtent(spec: ModelSpec, T: number): number {
   return extent;
 }
 
+/** Zero imaginary parts for real arguments, and where their (unused) phases go; reused. */
+const momentScratch = (size: number) => ({
+  zeros: new Float64Array(size),
+  phase: new Float64Array(size),
+});
+let MOMENT_SCRATCH = momentScratch(32);
+
 /**
  * The law's COS range: Chernoff's bound for `tailMass` (`truncation-range.ts`) or, should no
  * moment bound both tails, the cumulant range c1 ± 12√(c2 + √c4) widened by the jumps' and
@@ -58,8 +65,11 @@ export function lawRange(
   tailMass: number,
   { c1, c2, c4 }: Cumulants = cumulants(spec, T),
 ): TruncationRange {
-  const logMoment: LogMoment = (p, out, count) =>
-    logCharacteristic(spec, T, p, new Float64Array(count), out, new Float64Array(count), count);
+  const logMoment: LogMoment = (p, out, count) => {
+    if (MOMENT_SCRATCH.zeros.length < count) MOMENT_SCRATCH = momentScratch(count);
+    const { zeros, phase } = MOMENT_SCRATCH;
+    logCharacteristic(spec, T, p, zeros, out, phase, count);
+  };
   const range = chernoffRange(logMoment, (p) => momentIsFinite(spec, p, T), c2, tailMass);
   if (range) return range;
   const half =

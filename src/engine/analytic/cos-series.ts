@@ -77,15 +77,19 @@ export function cosSeries(
   withSlope: boolean,
   logCf: LogCf,
   block = BLOCK,
+  envelope?: Envelope,
 ): CosSeries {
   const step = Math.PI / (b - a);
+  // with a bound on |φ| the terms are known before any is computed, and come in one call
+  const planned = envelope && settings.trimTerms ? plannedTerms(envelope, step, settings) : 0;
   let capacity = Math.min(settings.maxTerms, scratch.wr.length);
   let { wr, wi, re, im, slopeRe, slopeIm } = scratch;
   wr.fill(0);
   let n = 0;
   let capped = false;
   for (;;) {
-    if (n + block > capacity) {
+    if (planned > 0) block = planned;
+    while (n + block > capacity) {
       if (capacity >= settings.maxTerms) {
         capped = true;
         break;
@@ -99,6 +103,7 @@ export function cosSeries(
       slopeIm = grow(slopeIm, capacity);
       scratch = { wr, wi, re, im, slopeRe, slopeIm };
     }
+    if (capped) break;
     for (let k = n; k < n + block; k++) wi[k] = k * step;
     logCf(
       wr.subarray(n),
@@ -115,63 +120,146 @@ export function cosSeries(
     const uStart = n * step;
     n += block;
     if (
-      n >= settings.minTerms &&
-      Math.exp(blockMax) / (1 + uStart * uStart) < settings.tailTolerance
+      planned > 0 ||
+      (n >= settings.minTerms &&
+        Math.exp(blockMax) / (1 + uStart * uStart) < settings.tailTolerance)
     )
       break;
   }
-  const u = new Float64Array(n);
-  const coef = new Float64Array(n);
-  const coefSlope = withSlope ? new Float64Array(n) : null;
+  if (settings.trimTerms) n = trimmedLength(re, n, step, settings);
+  // one buffer for all of the series' arrays: a typed array's own allocation costs more than
+  // the few hundred terms it holds
+  const buffer = new Float64Array(n * (withSlope ? 7 : 4));
+  const u = buffer.subarray(0, n);
+  const main = emptyCoefficients(buffer, n, 1);
+  const slope = withSlope ? emptyCoefficients(buffer, n, 4) : null;
   const scale = 2 / (b - a);
+  const { coef, coefOverU, coefOverU2 } = main;
+  // the slope's arrays alias the main ones when there is no slope, and are then not written
+  const { coef: slopeCoef, coefOverU: slopeOverU, coefOverU2: slopeOverU2 } = slope ?? main;
+  let sum = 0;
+  let alt = 0;
+  let slopeSum = 0;
+  let slopeAlt = 0;
   for (let k = 0; k < n; k++) {
     const uk = k * step;
     u[k] = uk;
+    // the n = 0 term is halved
+    const weight = k === 0 ? 0.5 * scale : scale;
     // Re[e^{lnφ} e^{−i u a}] = e^{Re lnφ} cos ϑ, ϑ = Im lnφ − u a
-    const modulus = Math.exp(re[k]);
+    const modulus = weight * Math.exp(re[k]);
     const angle = im[k] - uk * a;
     const cosine = Math.cos(angle);
-    coef[k] = scale * modulus * cosine;
+    const overU = k === 0 ? 0 : 1 / uk;
+    const overU2 = 1 / (1 + uk * uk);
+    const value = modulus * cosine;
+    coef[k] = value;
+    coefOverU[k] = value * overU;
+    const v2 = value * overU2;
+    coefOverU2[k] = v2;
+    // Σ_{n≥1} A_n/(1 + u_n²) and Σ_{n≥1} (−1)^n A_n/(1 + u_n²)
+    const odd = (k & 1) === 1;
+    if (k > 0) {
+      sum += v2;
+      alt += odd ? -v2 : v2;
+    }
+    if (!slope) continue;
     // Re[φ·(s_r + i s_i)·e^{−iua}] = e^{Re lnφ}(s_r cos ϑ − s_i sin ϑ)
-    if (coefSlope)
-      coefSlope[k] = scale * modulus * (slopeRe[k] * cosine - slopeIm[k] * Math.sin(angle));
+    const slopeValue = modulus * (slopeRe[k] * cosine - slopeIm[k] * Math.sin(angle));
+    slopeCoef[k] = slopeValue;
+    slopeOverU[k] = slopeValue * overU;
+    const s2 = slopeValue * overU2;
+    slopeOverU2[k] = s2;
+    if (k > 0) {
+      slopeSum += s2;
+      slopeAlt += odd ? -s2 : s2;
+    }
   }
-  coef[0] *= 0.5;
-  let slope: CosSlope | null = null;
-  if (coefSlope) {
-    coefSlope[0] *= 0.5;
-    slope = { coef: coefSlope, ...derivedSums(u, coefSlope) };
+  main.sumOverU2Tail = sum;
+  main.sumAltTail = alt;
+  if (slope) {
+    slope.sumOverU2Tail = slopeSum;
+    slope.sumAltTail = slopeAlt;
   }
-  return {
-    a,
-    b,
-    terms: n,
-    u,
-    coef,
-    ...derivedSums(u, coef),
-    capped,
-    slope,
-    mean: 1,
-    meanSlope: 0,
-  };
+  return { a, b, terms: n, u, ...main, capped, slope, mean: 1, meanSlope: 0 };
 }
 
-/** A_n/u_n, A_n/(1 + u_n²) and their strike-independent sums, for one set of coefficients. */
-function derivedSums(u: Float64Array, coef: Float64Array) {
-  const n = coef.length;
-  const coefOverU = new Float64Array(n);
-  const coefOverU2 = new Float64Array(n);
-  for (let k = 0; k < n; k++) {
-    coefOverU[k] = k === 0 ? 0 : coef[k] / u[k];
-    coefOverU2[k] = coef[k] / (1 + u[k] * u[k]);
+/** An upper bound on |φ(u)| for u ≥ 0 that falls as u grows. */
+export type Envelope = (u: number) => number;
+
+/**
+ * The terms an envelope asks for: the fewest n ≥ minTerms whose neglected terms, bounded by the
+ * envelope, stay below both tolerances (see `trimmedLength`). The sums start where the
+ * envelope has fallen to a thousandth of the tolerances, found by doubling, and run back from
+ * there; a bound that falls like a Gaussian leaves nothing of weight beyond that point.
+ */
+function plannedTerms(envelope: Envelope, step: number, settings: CosSettings): number {
+  const scale = (2 * step) / Math.PI;
+  const { tailTolerance, densityTolerance, minTerms, maxTerms } = settings;
+  const priceWeight = (k: number) => envelope(k * step) / (1 + k * k * step * step);
+  let end = minTerms;
+  while (
+    end < maxTerms &&
+    !(
+      priceWeight(end) < 1e-3 * tailTolerance &&
+      scale * envelope(end * step) < 1e-3 * densityTolerance
+    )
+  )
+    end *= 2;
+  if (end >= maxTerms) return maxTerms;
+  let priceTail = 0;
+  let densityTail = 0;
+  for (let k = end - 1; k >= minTerms; k--) {
+    priceTail += priceWeight(k);
+    densityTail += scale * envelope(k * step);
+    if (!(priceTail < tailTolerance && densityTail < densityTolerance)) return k + 1;
   }
-  let sumOverU2Tail = 0;
-  let sumAltTail = 0;
-  for (let k = 1; k < n; k++) {
-    sumOverU2Tail += coefOverU2[k];
-    sumAltTail += k % 2 === 1 ? -coefOverU2[k] : coefOverU2[k];
+  return minTerms;
+}
+
+/**
+ * Where the computed terms can end: the fewest n ≥ minTerms whose neglected terms stay below
+ * both tolerances, counted as the computed ones plus a geometric tail beyond them at the last
+ * block's rate of decay. A price carries Σ_{m≥n} |φ(u_m)|/(1 + u_m²) of them (the payoff
+ * coefficients fall like 1/(1 + u²)), the density (so gamma) Σ_{m≥n} (2/(b − a))|φ(u_m)|.
+ * Without a decay to extrapolate, all stay.
+ */
+function trimmedLength(re: Float64Array, n: number, step: number, settings: CosSettings): number {
+  const scale = (2 * step) / Math.PI;
+  const density = (k: number) => scale * Math.exp(re[k]);
+  const back = Math.min(32, n - 1);
+  const ratio = Math.pow(density(n - 1) / density(n - 1 - back), 1 / back);
+  if (!(ratio < 1)) return n;
+  const beyond = ratio / (1 - ratio);
+  const uEnd = (n - 1) * step;
+  let priceTail = (density(n - 1) / scale / (1 + uEnd * uEnd)) * beyond;
+  let densityTail = density(n - 1) * beyond;
+  let end = n;
+  while (end > settings.minTerms) {
+    const k = end - 1;
+    const d = density(k);
+    const nextPrice = priceTail + d / scale / (1 + k * k * step * step);
+    const nextDensity = densityTail + d;
+    if (!(nextPrice < settings.tailTolerance && nextDensity < settings.densityTolerance)) break;
+    priceTail = nextPrice;
+    densityTail = nextDensity;
+    end = k;
   }
-  return { coefOverU, coefOverU2, sumOverU2Tail, sumAltTail };
+  return end;
+}
+
+/**
+ * A_n, A_n/u_n, A_n/(1 + u_n²) (arrays `first` to `first + 2` of `buffer`, n long) and the
+ * strike-independent sums, filled term by term.
+ */
+function emptyCoefficients(buffer: Float64Array, n: number, first: number): CosSlope {
+  return {
+    coef: buffer.subarray(first * n, (first + 1) * n),
+    coefOverU: buffer.subarray((first + 1) * n, (first + 2) * n),
+    coefOverU2: buffer.subarray((first + 2) * n, (first + 3) * n),
+    sumOverU2Tail: 0,
+    sumAltTail: 0,
+  };
 }
 
 function grow(arr: Float64Array, size: number): Float64Array {

@@ -21,15 +21,25 @@ export interface CosSettings {
   tailMass: number;
   /** stop adding terms once |φ(u_n)|/(1 + u_n²) stays below this over a whole block */
   tailTolerance: number;
+  /** and the density's neglected terms, Σ (2/(b − a))|φ(u_n)|, below this */
+  densityTolerance: number;
   minTerms: number;
   maxTerms: number;
+  /**
+   * Whether a series ends at the term its tolerances ask for (true), or at the end of the block
+   * of terms in which they were met. Whole blocks change the count less often as parameters move,
+   * which keeps finite-difference derivatives of coarse trial prices smooth.
+   */
+  trimTerms: boolean;
 }
 
 export const DEFAULT_COS_SETTINGS: CosSettings = {
   tailMass: 1e-14,
   tailTolerance: 1e-14,
-  minTerms: 64,
+  densityTolerance: 1e-10,
+  minTerms: 32,
   maxTerms: 1 << 16,
+  trimTerms: true,
 };
 
 /**
@@ -51,6 +61,9 @@ export interface CosExpiry extends CosSeries {
  */
 const DIRECT_CALL_LIMIT = 5;
 
+/** A mixture's top-level series holds no terms. */
+const EMPTY = new Float64Array(0);
+
 /**
  * Prepares one expiry's series. With `withSlope`, the coefficients' time slopes come from the
  * same characteristic-function values (∂A_n/∂τ = (2/(b − a)) Re[φ(u_n)·∂τ ln φ(u_n)·e^{−i u_n a}],
@@ -71,10 +84,10 @@ export function prepareCos(
       a,
       b,
       terms: parts.reduce((sum, p) => sum + p.series.terms, 0),
-      u: new Float64Array(0),
-      coef: new Float64Array(0),
-      coefOverU: new Float64Array(0),
-      coefOverU2: new Float64Array(0),
+      u: EMPTY,
+      coef: EMPTY,
+      coefOverU: EMPTY,
+      coefOverU2: EMPTY,
       sumOverU2Tail: 0,
       sumAltTail: 0,
       capped: parts.some((p) => p.series.capped),
@@ -118,6 +131,26 @@ export function cosStrip(
   else seriesStrip(prep, logMoneyness, call, put, cdf, density, timeSlope);
 }
 
+/**
+ * Working arrays for a strip's strikes, kept between calls (each engine runs in one thread) and
+ * grown when a strip has more strikes; every value read is written first in the same call.
+ */
+interface Scratch {
+  values: Float64Array[];
+  indices: Int32Array;
+}
+const SERIES_SCRATCH: Scratch = { values: [], indices: new Int32Array(0) };
+const MIXTURE_SCRATCH: Scratch = { values: [], indices: new Int32Array(0) };
+
+function workingArrays(scratch: Scratch, n: number): Scratch {
+  if (scratch.indices.length < n) {
+    const size = Math.max(64, n);
+    scratch.values = Array.from({ length: 6 }, () => new Float64Array(size));
+    scratch.indices = new Int32Array(size);
+  }
+  return scratch;
+}
+
 /** `cosStrip` for weighted parts: each part's strip, weighted; the weights move with τ too. */
 function mixtureStrip(
   parts: readonly MixturePart[],
@@ -129,11 +162,9 @@ function mixtureStrip(
   timeSlope?: Float64Array,
 ): void {
   const n = logMoneyness.length;
-  const c = new Float64Array(n);
-  const p = new Float64Array(n);
-  const f = new Float64Array(n);
-  const d = new Float64Array(n);
-  const s = timeSlope ? new Float64Array(n) : undefined;
+  // one part's values (seriesStrip's own working arrays are another set)
+  const [c, p, f, d, partSlope] = workingArrays(MIXTURE_SCRATCH, n).values;
+  const s = timeSlope ? partSlope : undefined;
   for (const out of [call, put, cdf, density, timeSlope]) out?.fill(0);
   for (const part of parts) {
     seriesStrip(part.series, logMoneyness, c, p, f, d, s);
@@ -169,8 +200,11 @@ export function seriesStrip(
   const ea = Math.exp(a);
   const eb = Math.exp(b);
   const step = Math.PI / (b - a);
+  const work = workingArrays(SERIES_SCRATCH, logMoneyness.length);
+  const [deltas, S, C, R, dS, dR] = work.values;
+  const insideAt = work.indices;
   // strikes inside (a, b) go through the series; the rest are settled here
-  const inside: number[] = [];
+  let m = 0;
   for (let j = 0; j < logMoneyness.length; j++) {
     const k = logMoneyness[j];
     const ek = Math.exp(k);
@@ -186,22 +220,17 @@ export function seriesStrip(
       cdf[j] = 1;
       density[j] = 0;
       if (timeSlope) timeSlope[j] = -prep.meanSlope;
-    } else inside.push(j);
+    } else {
+      deltas[m] = step * (k - a);
+      insideAt[m++] = j;
+    }
   }
-  const m = inside.length;
-  const deltas = new Float64Array(m);
-  for (let i = 0; i < m; i++) deltas[i] = step * (logMoneyness[inside[i]] - a);
-  const S = new Float64Array(m);
-  const C = new Float64Array(m);
-  const R = new Float64Array(m);
   const slope = timeSlope ? prep.slope : null;
   if (timeSlope && !slope) throw new Error('cosStrip: time slopes need prepareCos(..., true)');
-  const dS = slope ? new Float64Array(m) : S;
-  const dR = slope ? new Float64Array(m) : R;
   if (slope) stripSumsWithSlope(prep, slope, deltas, m, S, C, R, dS, dR);
   else stripSums(prep, deltas, m, S, C, R);
   for (let i = 0; i < m; i++) {
-    const j = inside[i];
+    const j = insideAt[i];
     const k = logMoneyness[j];
     const ek = Math.exp(k);
     const sumPsi = a0 * (k - a) + S[i]; // Σ A_n ψ_n(a, k)

@@ -3,7 +3,7 @@
  * the real line, by central differences at ±h, ±2h (ψ(0) = 0). They only set the COS
  * truncation range, so a few digits suffice; h is scaled to the distribution's width.
  */
-import { logCharacteristicAt, type ModelSpec } from './characteristic';
+import { logCharacteristic, logCharacteristicAt, type ModelSpec } from './characteristic';
 import { expectedJumps } from '../core/model-spec';
 import { moveVariance, touches } from '../core/scheduled-moves';
 
@@ -99,10 +99,10 @@ export function cumulants(spec: ModelSpec, T: number): Cumulants {
       h *= 0.5;
       continue;
     }
-    const p1 = logCharacteristicAt(spec, T, h, 0)[0];
-    const m1 = logCharacteristicAt(spec, T, -h, 0)[0];
-    const p2 = logCharacteristicAt(spec, T, 2 * h, 0)[0];
-    const m2 = logCharacteristicAt(spec, T, -2 * h, 0)[0];
+    const w = Float64Array.of(h, -h, 2 * h, -2 * h);
+    const lnM = new Float64Array(4);
+    logCharacteristic(spec, T, w, new Float64Array(4), lnM, new Float64Array(4), 4);
+    const [p1, m1, p2, m2] = lnM;
     const c1 = (8 * (p1 - m1) - (p2 - m2)) / (12 * h);
     const c2 = (16 * (p1 + m1) - (p2 + m2)) / (12 * h * h);
     const c4 = (p2 + m2 - 4 * (p1 + m1)) / (h * h * h * h);

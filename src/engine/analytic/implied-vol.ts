@@ -22,28 +22,30 @@ export interface ImpliedVolResult {
 
 /**
  * σ√T such that the normalised OTM call b(x, s) equals beta; x ≤ 0, 0 < beta < e^{x/2}.
+ * `guess`, when given, is where the iteration starts (a neighbouring strike's root, say); the
+ * bracket keeps the result the same whatever the guess, to rounding.
  */
-export function normalisedImpliedSigma(x: number, beta: number): number {
+export function normalisedImpliedSigma(x: number, beta: number, guess = NaN): number {
   const ax = Math.abs(x);
-  const bMax = Math.exp(-0.5 * ax);
   const xx = ax * ax;
   const sC = Math.sqrt(2 * ax);
-  const bC = normalisedOtmCall(-ax, sC);
-  const lower = beta < bC;
-  let s: number;
-  if (ax === 0) {
-    s = -2 * normInv(0.5 * (1 - beta));
-  } else if (lower) {
-    s = Math.min(sC, ax / Math.sqrt(-2 * Math.log(beta)));
+  let s = guess;
+  let b = s > 0 && Number.isFinite(s) ? normalisedOtmCall(-ax, s) : NaN;
+  let lower: boolean;
+  if (guessIsClose(ax, s, b, beta)) {
+    // a close start converges on either objective: the one on its side of s_c
+    lower = s < sC;
   } else {
-    s = Math.max(sC, -2 * normInv((0.5 * (bMax - beta)) / bMax));
+    // no guess, or one too far off for the steps to be trusted: Jäckel's start
+    lower = beta < normalisedOtmCall(-ax, sC);
+    s = initialSigma(ax, sC, beta, lower);
+    b = normalisedOtmCall(-ax, s);
   }
-  if (!(s > 0) || !Number.isFinite(s)) s = sC > 0 ? sC : 0.5;
   let lo = 0;
   let hi = Infinity;
   const lnBeta = Math.log(beta);
   for (let iter = 0; iter < 100; iter++) {
-    const b = normalisedOtmCall(-ax, s);
+    if (iter > 0) b = normalisedOtmCall(-ax, s);
     if (b > beta) hi = Math.min(hi, s);
     else lo = Math.max(lo, s);
     const h = ax / s;
@@ -93,6 +95,34 @@ export function normalisedImpliedSigma(x: number, beta: number): number {
     s = next;
   }
   return s;
+}
+
+/**
+ * Whether a start s with price b is close enough to trust its steps: within a factor e in price
+ * and a Newton step of at most half of s on the log objective. Far on the flat wing of b(s)
+ * (where vega all but vanishes) the steps would crawl.
+ */
+function guessIsClose(ax: number, s: number, b: number, beta: number): boolean {
+  const logRatio = Math.log(b / beta);
+  if (!(Math.abs(logRatio) < 1)) return false;
+  const h = ax / s;
+  const t = 0.5 * s;
+  const vega = Math.exp(-0.5 * (h * h + t * t)) * INV_SQRT_2PI;
+  return Math.abs(logRatio) * b <= 0.5 * s * vega;
+}
+
+/** A closed-form or asymptotic start on the objective's own side of s_c. */
+function initialSigma(ax: number, sC: number, beta: number, lower: boolean): number {
+  let s: number;
+  if (ax === 0) {
+    s = -2 * normInv(0.5 * (1 - beta));
+  } else if (lower) {
+    s = Math.min(sC, ax / Math.sqrt(-2 * Math.log(beta)));
+  } else {
+    const bMax = Math.exp(-0.5 * ax);
+    s = Math.max(sC, -2 * normInv((0.5 * (bMax - beta)) / bMax));
+  }
+  return s > 0 && Number.isFinite(s) ? s : sC > 0 ? sC : 0.5;
 }
 
 export interface ImpliedVolInputs {

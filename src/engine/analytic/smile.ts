@@ -7,7 +7,7 @@ import { modelSpec, type ModelSpec } from './characteristic';
 import { cosStrip, prepareCos, type CosExpiry, DEFAULT_COS_SETTINGS } from './cos';
 import { forwardPrice } from '../core/market';
 import { normCdf, normInv } from './normal';
-import { impliedVolFromOtm } from './pricing';
+import { impliedVolFromOtm, stripImpliedVols } from './pricing';
 import { expiryGrid, type StrikeSpacing } from './strike-grid';
 import type { Market, Model } from '../core/types';
 
@@ -106,9 +106,7 @@ export function smileSlice(
   const dens = new Float64Array(n);
   cosStrip(prep, logMoneyness, call, put, cdf, dens);
   const rootT = Math.sqrt(expiry);
-  const impliedVols = logMoneyness.map((k, j) =>
-    impliedVolFromOtm(k < 0 ? put[j] : call[j], k, expiry),
-  );
+  const impliedVols = stripImpliedVols(call, put, logMoneyness, expiry);
   const callDeltas = impliedVols.map((v, j) => {
     if (v === null) return null;
     const s = v * rootT;

@@ -99,6 +99,15 @@ const CANDIDATE_RATIO = 1.5;
 const CANDIDATES = 16;
 
 /**
+ * The candidates and their ln M, kept between calls (each engine runs in one thread): a typed
+ * array of more than a few elements costs microseconds to allocate, more than the bound itself.
+ */
+const CANDIDATE_SCRATCH = {
+  p: new Float64Array(2 * CANDIDATES),
+  lnM: new Float64Array(2 * CANDIDATES),
+};
+
+/**
  * The range for tail mass `tailMass`, given ln M, its domain test and the law's first two
  * cumulants (which place the first candidates: a normal law's best p is √(2 ln(1/ε)/c2)).
  * Null when no candidate gives a finite bound on a side.
@@ -113,16 +122,13 @@ export function chernoffRange(
   const gaussianBest = Math.sqrt((-2 * logEps) / c2);
   // outward from the gaussian optimum's 1/1.5^11: fat tails want a smaller p than a normal law
   const first = gaussianBest / CANDIDATE_RATIO ** (CANDIDATES - 5);
-  const lower = candidates((i) => -first * CANDIDATE_RATIO ** i, finiteAt);
-  const upper = candidates((i) => 1 + first * CANDIDATE_RATIO ** i, finiteAt);
-  const p = new Float64Array(lower.length + upper.length);
-  p.set(lower);
-  p.set(upper, lower.length);
-  const lnM = new Float64Array(p.length);
-  logMoment(p, lnM, p.length);
+  const { p, lnM } = CANDIDATE_SCRATCH;
+  const lowerCount = candidates(p, 0, -1, first, finiteAt);
+  const count = lowerCount + candidates(p, lowerCount, 1, first, finiteAt);
+  logMoment(p, lnM, count);
   let a = -Infinity;
   let b = Infinity;
-  for (let i = 0; i < p.length; i++) {
+  for (let i = 0; i < count; i++) {
     if (!Number.isFinite(lnM[i])) continue;
     if (p[i] < 0) a = Math.max(a, (logEps - lnM[i]) / -p[i]);
     else b = Math.min(b, (lnM[i] - logEps) / (p[i] - 1));
@@ -130,13 +136,22 @@ export function chernoffRange(
   return Number.isFinite(a) && Number.isFinite(b) && a < b ? { a, b } : null;
 }
 
-/** The candidates p(0), p(1), … up to the first outside the moments' domain. */
-function candidates(at: (i: number) => number, finiteAt: (p: number) => boolean): number[] {
-  const out: number[] = [];
-  for (let i = 0; i < CANDIDATES; i++) {
-    const p = at(i);
-    if (!finiteAt(p)) break;
-    out.push(p);
+/**
+ * Writes the candidates on one side into p from `at`: −x_i below 0 (side −1) or 1 + x_i above 1
+ * (side +1), x_i = first·1.5^i, up to the first outside the moments' domain; returns how many.
+ */
+function candidates(
+  p: Float64Array,
+  at: number,
+  side: -1 | 1,
+  first: number,
+  finiteAt: (p: number) => boolean,
+): number {
+  let x = first;
+  for (let i = 0; i < CANDIDATES; i++, x *= CANDIDATE_RATIO) {
+    const candidate = side < 0 ? -x : 1 + x;
+    if (!finiteAt(candidate)) return i;
+    p[at + i] = candidate;
   }
-  return out;
+  return CANDIDATES;
 }

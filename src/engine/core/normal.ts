@@ -26,6 +26,9 @@ for (let j = 1; j < MILLS_GRID.length; j++) {
   MILLS_GRID[j] = millsByContinuedFraction(j * GRID_STEP, 20000);
 }
 
+/** 1/n for the Taylor recursion, a multiplication being cheaper than a division. */
+const RECIPROCALS = Float64Array.from({ length: 122 }, (_, n) => (n === 0 ? 0 : 1 / n));
+
 /**
  * Taylor coefficients c_n = R^(n)(z0)/n! of the Mills ratio at z0, from R(z0), into `out`.
  * The forward recursion is stable while z0·|h| stays small (errors grow like e^{z0·|h|}).
@@ -36,7 +39,7 @@ function millsTaylor(z0: number, r0: number, h: number, oddOnly: boolean): numbe
   let power = h;
   let sum = oddOnly ? cCurr * h : r0 + cCurr * h;
   for (let n = 1; n < 120; n++) {
-    const cNext = (z0 * cCurr + cPrev) / (n + 1);
+    const cNext = (z0 * cCurr + cPrev) * RECIPROCALS[n + 1];
     power *= h;
     cPrev = cCurr;
     cCurr = cNext;

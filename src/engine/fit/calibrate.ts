@@ -21,7 +21,7 @@ import { eventSizeKey } from './event-sizes';
 import { parameterErrors, type ParameterErrors } from './parameter-errors';
 import { forwardPrice } from '../core/market';
 import { normPdf } from '../analytic/normal';
-import { impliedVolFromOtm } from '../analytic/pricing';
+import { stripImpliedVols } from '../analytic/pricing';
 import type { Market, Model } from '../core/types';
 
 export interface VolQuote {
@@ -77,7 +77,14 @@ export interface CalibrationResult {
   anchorPenalty?: number;
 }
 
-const TRIAL_COS: CosSettings = { ...DEFAULT_COS_SETTINGS, tailMass: 1e-11, tailTolerance: 1e-11 };
+// trial prices are coarse, and their finite-difference Jacobian wants them smooth in the
+// parameters: whole blocks of terms
+const TRIAL_COS: CosSettings = {
+  ...DEFAULT_COS_SETTINGS,
+  tailMass: 1e-11,
+  tailTolerance: 1e-11,
+  trimTerms: false,
+};
 
 /** Model implied vols at every quote, one COS preparation per expiry. */
 export function modelVols(
@@ -106,7 +113,8 @@ export function modelVols(
       new Float64Array(n),
       new Float64Array(n),
     );
-    idx.forEach((qi, j) => (out[qi] = impliedVolFromOtm(ks[j] < 0 ? put[j] : call[j], ks[j], T)));
+    const vols = stripImpliedVols(call, put, ks, T);
+    idx.forEach((qi, j) => (out[qi] = vols[j]));
   }
   return out;
 }
