@@ -45,7 +45,11 @@ export interface StripValues {
   timeSlope: Float64Array | null;
 }
 
-/** Prices one expiry's strikes (as log-moneyness ln(K/F)) per unit forward. */
+/**
+ * Prices one expiry's strikes (as log-moneyness ln(K/F)) per unit forward. The five arrays are
+ * views on `buffer` (5 × the strikes long) when given, so that a caller pricing many expiries
+ * makes one allocation: each typed array's own costs microseconds.
+ */
 export function priceStrip(
   spec: ModelSpec,
   market: Market,
@@ -53,10 +57,9 @@ export function priceStrip(
   logMoneyness: ArrayLike<number>,
   settings: CosSettings = DEFAULT_COS_SETTINGS,
   withTimeSlope = false,
+  buffer: Float64Array = new Float64Array(5 * logMoneyness.length),
 ): StripValues {
   const n = logMoneyness.length;
-  // one allocation for the five arrays: each typed array's own costs microseconds
-  const buffer = new Float64Array(5 * n);
   const part = (i: number) => buffer.subarray(i * n, (i + 1) * n);
   const out: StripValues = {
     forward: forwardPrice(market, expiry),
@@ -137,13 +140,20 @@ export function priceOptions(
   });
   // figures first, objects last: results made while later expiries are still being priced
   // would outlive the young generation's collections, and the allocator would then place
-  // every later one straight in the old generation
-  const [price, delta, gamma, vega, theta] = Array.from({ length: 5 }, () => new Float64Array(n));
+  // every later one straight in the old generation. One buffer holds the five figures and,
+  // per expiry, its log-moneyness and strip values (6 per option).
+  const work = new Float64Array(11 * n);
+  const [price, delta, gamma, vega, theta] = [0, 1, 2, 3, 4].map((f) =>
+    work.subarray(f * n, (f + 1) * n),
+  );
+  let free = 5 * n;
+  const take = (size: number) => work.subarray(free, (free += size));
   const vols: (number | null)[] = new Array(n);
   const spec = modelSpec(model);
   for (const [expiry, indices] of byExpiry) {
     const strikes = indices.map((i) => options[i].strike);
-    const v = valueAt(spec, model, market, expiry, strikes, settings);
+    const m = strikes.length;
+    const v = valueAt(spec, model, market, expiry, strikes, settings, take(m), take(5 * m));
     const { forward: F, discount: df } = v;
     const slopes = marketLogSlopes(market, expiry);
     const rootT = Math.sqrt(expiry);
@@ -220,12 +230,14 @@ function valueAt(
   expiry: number,
   strikes: number[],
   settings: CosSettings,
+  ks: Float64Array,
+  stripBuffer: Float64Array,
 ): ExpiryValues {
   const F = forwardPrice(market, expiry);
   const df = discountFactor(market, expiry);
-  const ks = Float64Array.from(strikes, (K) => Math.log(K / F));
+  strikes.forEach((K, j) => (ks[j] = Math.log(K / F)));
   if (isBlackScholes(spec)) return blackScholesValues(model, market, expiry, strikes, ks);
-  const v = priceStrip(spec, market, expiry, ks, settings, true);
+  const v = priceStrip(spec, market, expiry, ks, settings, true, stripBuffer);
   const vols = stripImpliedVols(v.call, v.put, ks, expiry);
   // discounted in place: the strip's arrays are this call's own
   for (let j = 0; j < ks.length; j++) {
