@@ -6,7 +6,7 @@ import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import { parameterLabel, type ParameterKey } from '../../../engine/core';
 import type { FitHistoryEntry } from '../../../engine/fit';
-import { chartFrame, chartTheme, panelTitle } from '../../../components/chart-theme';
+import { chartFrame, chartTheme, panelTitle, withAlpha } from '../../../components/chart-theme';
 import { PlotlyChart } from '../../../components/PlotlyChart';
 import { useTheme } from '../../../components/theme';
 
@@ -49,7 +49,7 @@ export function FitHistoryChart({ history }: { history: FitHistoryEntry[] }) {
           x,
           y: y.map((v, j) => v - se[j]),
           fill: 'tonexty',
-          fillcolor: 'rgba(59,110,165,0.18)',
+          fillcolor: withAlpha(t.base, 0.18),
           line: { width: 0 },
           hoverinfo: 'skip',
           ...axes,
