@@ -185,25 +185,18 @@ export function priceOptions(
   const results: OptionResult[] = new Array(n);
   for (let i = 0; i < n; i++) {
     const impliedVol = vols[i];
-    results[i] =
-      impliedVol === null
-        ? {
-            price: price[i],
-            impliedVol,
-            delta: delta[i],
-            gamma: gamma[i],
-            vega: vega[i],
-            theta: theta[i],
-            note: 'time value below 1e-12 of the forward: implied vol not defined',
-          }
-        : {
-            price: price[i],
-            impliedVol,
-            delta: delta[i],
-            gamma: gamma[i],
-            vega: vega[i],
-            theta: theta[i],
-          };
+    const result: OptionResult = {
+      price: price[i],
+      impliedVol,
+      delta: delta[i],
+      gamma: gamma[i],
+      vega: vega[i],
+      theta: theta[i],
+    };
+    if (impliedVol === null) {
+      result.note = 'time value below 1e-12 of the forward: implied vol not defined';
+    }
+    results[i] = result;
   }
   return results;
 }
