@@ -16,11 +16,10 @@ export type LogCf = (
   slope?: TimeSlopeOut,
 ) => void;
 
-/** ∂/∂τ of the series' coefficients and of their strike-independent sums. */
+/** ∂/∂τ of the series' first coefficient and of its strike-independent sums. */
 export interface CosSlope {
-  coef: Float64Array;
-  coefOverU: Float64Array;
-  coefOverU2: Float64Array;
+  /** ∂A_0/∂τ, halved as A_0 is */
+  a0: number;
   sumOverU2Tail: number;
   sumAltTail: number;
 }
@@ -29,13 +28,16 @@ export interface CosSeries {
   a: number;
   b: number;
   terms: number;
-  /** u_n = nπ/(b − a) */
-  u: Float64Array;
-  /** A_n with the n = 0 term halved */
-  coef: Float64Array;
-  /** A_n / u_n (0 for n = 0) and A_n / (1 + u_n²), shared by every strike */
-  coefOverU: Float64Array;
-  coefOverU2: Float64Array;
+  /**
+   * Term n's values at n·stride, interleaved so that the strike sums read them from one place:
+   * A_n/u_n (0 for n = 0), A_n/(1 + u_n²), A_n, u_n = nπ/(b − a) and, with time slopes,
+   * ∂A_n/∂τ/u_n and ∂A_n/∂τ/(1 + u_n²).
+   */
+  table: Float64Array;
+  /** 6 with time slopes, else 4 */
+  stride: number;
+  /** A_0, halved as the series takes it */
+  a0: number;
   /** Σ_{n≥1} A_n/(1 + u_n²) and Σ_{n≥1} (−1)^n A_n/(1 + u_n²), strike-independent */
   sumOverU2Tail: number;
   sumAltTail: number;
@@ -127,23 +129,17 @@ export function cosSeries(
       break;
   }
   if (settings.trimTerms) n = trimmedLength(re, n, step, settings);
-  // one buffer for all of the series' arrays: a typed array's own allocation costs more than
-  // the few hundred terms it holds
-  const buffer = new Float64Array(n * (withSlope ? 7 : 4));
-  const u = buffer.subarray(0, n);
-  const main = emptyCoefficients(buffer, n, 1);
-  const slope = withSlope ? emptyCoefficients(buffer, n, 4) : null;
+  const stride = withSlope ? 6 : 4;
+  const table = new Float64Array(n * stride);
   const scale = 2 / (b - a);
-  const { coef, coefOverU, coefOverU2 } = main;
-  // the slope's arrays alias the main ones when there is no slope, and are then not written
-  const { coef: slopeCoef, coefOverU: slopeOverU, coefOverU2: slopeOverU2 } = slope ?? main;
   let sum = 0;
   let alt = 0;
   let slopeSum = 0;
   let slopeAlt = 0;
-  for (let k = 0; k < n; k++) {
+  let a0 = 0;
+  let slopeA0 = 0;
+  for (let k = 0, i = 0; k < n; k++, i += stride) {
     const uk = k * step;
-    u[k] = uk;
     // the n = 0 term is halved
     const weight = k === 0 ? 0.5 * scale : scale;
     // Re[e^{lnφ} e^{−i u a}] = e^{Re lnφ} cos ϑ, ϑ = Im lnφ − u a
@@ -153,35 +149,45 @@ export function cosSeries(
     const overU = k === 0 ? 0 : 1 / uk;
     const overU2 = 1 / (1 + uk * uk);
     const value = modulus * cosine;
-    coef[k] = value;
-    coefOverU[k] = value * overU;
     const v2 = value * overU2;
-    coefOverU2[k] = v2;
+    table[i] = value * overU;
+    table[i + 1] = v2;
+    table[i + 2] = value;
+    table[i + 3] = uk;
     // Σ_{n≥1} A_n/(1 + u_n²) and Σ_{n≥1} (−1)^n A_n/(1 + u_n²)
     const odd = (k & 1) === 1;
-    if (k > 0) {
+    if (k === 0) a0 = value;
+    else {
       sum += v2;
       alt += odd ? -v2 : v2;
     }
-    if (!slope) continue;
+    if (!withSlope) continue;
     // Re[φ·(s_r + i s_i)·e^{−iua}] = e^{Re lnφ}(s_r cos ϑ − s_i sin ϑ)
     const slopeValue = modulus * (slopeRe[k] * cosine - slopeIm[k] * Math.sin(angle));
-    slopeCoef[k] = slopeValue;
-    slopeOverU[k] = slopeValue * overU;
     const s2 = slopeValue * overU2;
-    slopeOverU2[k] = s2;
-    if (k > 0) {
+    table[i + 4] = slopeValue * overU;
+    table[i + 5] = s2;
+    if (k === 0) slopeA0 = slopeValue;
+    else {
       slopeSum += s2;
       slopeAlt += odd ? -s2 : s2;
     }
   }
-  main.sumOverU2Tail = sum;
-  main.sumAltTail = alt;
-  if (slope) {
-    slope.sumOverU2Tail = slopeSum;
-    slope.sumAltTail = slopeAlt;
-  }
-  return { a, b, terms: n, u, ...main, capped, slope, mean: 1, meanSlope: 0 };
+  const slope = withSlope ? { a0: slopeA0, sumOverU2Tail: slopeSum, sumAltTail: slopeAlt } : null;
+  return {
+    a,
+    b,
+    terms: n,
+    table,
+    stride,
+    a0,
+    sumOverU2Tail: sum,
+    sumAltTail: alt,
+    capped,
+    slope,
+    mean: 1,
+    meanSlope: 0,
+  };
 }
 
 /** An upper bound on |φ(u)| for u ≥ 0 that falls as u grows. */
@@ -246,20 +252,6 @@ function trimmedLength(re: Float64Array, n: number, step: number, settings: CosS
     end = k;
   }
   return end;
-}
-
-/**
- * A_n, A_n/u_n, A_n/(1 + u_n²) (arrays `first` to `first + 2` of `buffer`, n long) and the
- * strike-independent sums, filled term by term.
- */
-function emptyCoefficients(buffer: Float64Array, n: number, first: number): CosSlope {
-  return {
-    coef: buffer.subarray(first * n, (first + 1) * n),
-    coefOverU: buffer.subarray((first + 1) * n, (first + 2) * n),
-    coefOverU2: buffer.subarray((first + 2) * n, (first + 3) * n),
-    sumOverU2Tail: 0,
-    sumAltTail: 0,
-  };
 }
 
 function grow(arr: Float64Array, size: number): Float64Array {

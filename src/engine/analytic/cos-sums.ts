@@ -1,7 +1,9 @@
 /**
  * The strike-dependent cosine sums of a COS strip (see `cos.ts`), the hot loop of every price.
+ * A term's values are read from the series' interleaved table (`CosSeries.table`): A_n/u_n,
+ * A_n/(1 + u_n²), A_n, u_n and, with time slopes, the same two ratios of ∂A_n/∂τ.
  */
-import type { CosSeries, CosSlope } from './cos-series';
+import type { CosSeries } from './cos-series';
 
 /**
  * The strike-dependent sums of the COS series for angles Δ_j = π(k_j − a)/(b − a):
@@ -17,7 +19,8 @@ export function stripSums(
   C: Float64Array,
   R: Float64Array,
 ): void {
-  const { terms, u, coef, coefOverU, coefOverU2 } = prep;
+  const { terms, table: x, stride } = prep;
+  const end = terms * stride;
   let j = 0;
   for (; j + 4 <= count; j += 4) {
     const cd0 = Math.cos(deltas[j]),
@@ -48,11 +51,11 @@ export function stripSums(
       R1 = 0,
       R2 = 0,
       R3 = 0;
-    for (let n = 1; n < terms; n++) {
-      const an = coef[n],
-        au = coefOverU[n],
-        a2 = coefOverU2[n],
-        un = u[n];
+    for (let i = stride; i < end; i += stride) {
+      const au = x[i],
+        a2 = x[i + 1],
+        an = x[i + 2],
+        un = x[i + 3];
       let t = c0 * cd0 - s0 * sd0;
       s0 = s0 * cd0 + c0 * sd0;
       c0 = t;
@@ -99,13 +102,13 @@ export function stripSums(
       sS = 0,
       sC = 0,
       sR = 0;
-    for (let n = 1; n < terms; n++) {
+    for (let i = stride; i < end; i += stride) {
       const t = cn * cd - sn * sd;
       sn = sn * cd + cn * sd;
       cn = t;
-      sS += coefOverU[n] * sn;
-      sC += coef[n] * cn;
-      sR += coefOverU2[n] * (cn + u[n] * sn);
+      sS += x[i] * sn;
+      sC += x[i + 2] * cn;
+      sR += x[i + 1] * (cn + x[i + 3] * sn);
     }
     S[j] = sS;
     C[j] = sC;
@@ -116,10 +119,10 @@ export function stripSums(
 /**
  * `stripSums` and, in the same pass over n, S_j and R_j for the coefficients' time slopes (for a
  * calendar theta from the strip's own angles and rotations); two strikes advance together.
+ * The series must carry slopes (a table of stride 6).
  */
 export function stripSumsWithSlope(
   prep: CosSeries,
-  slope: CosSlope,
   deltas: Float64Array,
   count: number,
   S: Float64Array,
@@ -128,8 +131,9 @@ export function stripSumsWithSlope(
   dS: Float64Array,
   dR: Float64Array,
 ): void {
-  const { terms, u, coef, coefOverU, coefOverU2 } = prep;
-  const { coefOverU: slopeOverU, coefOverU2: slopeOverU2 } = slope;
+  const { terms, table: x, stride } = prep;
+  if (stride !== 6) throw new Error('stripSumsWithSlope: the series has no time slopes');
+  const end = terms * 6;
   for (let j = 0; j < count; j += 2) {
     const pair = j + 1 < count;
     const cd0 = Math.cos(deltas[j]),
@@ -150,13 +154,13 @@ export function stripSumsWithSlope(
       dS1 = 0,
       dR0 = 0,
       dR1 = 0;
-    for (let n = 1; n < terms; n++) {
-      const an = coef[n],
-        au = coefOverU[n],
-        a2 = coefOverU2[n],
-        su = slopeOverU[n],
-        s2 = slopeOverU2[n],
-        un = u[n];
+    for (let i = 6; i < end; i += 6) {
+      const au = x[i],
+        a2 = x[i + 1],
+        an = x[i + 2],
+        un = x[i + 3],
+        su = x[i + 4],
+        s2 = x[i + 5];
       let t = c0 * cd0 - s0 * sd0;
       s0 = s0 * cd0 + c0 * sd0;
       c0 = t;

@@ -84,10 +84,9 @@ export function prepareCos(
       a,
       b,
       terms: parts.reduce((sum, p) => sum + p.series.terms, 0),
-      u: EMPTY,
-      coef: EMPTY,
-      coefOverU: EMPTY,
-      coefOverU2: EMPTY,
+      table: EMPTY,
+      stride: 4,
+      a0: 0,
       sumOverU2Tail: 0,
       sumAltTail: 0,
       capped: parts.some((p) => p.series.capped),
@@ -196,7 +195,7 @@ export function seriesStrip(
   timeSlope?: Float64Array,
 ): void {
   const { a, b, mean } = prep;
-  const a0 = prep.coef[0];
+  const a0 = prep.a0;
   const ea = Math.exp(a);
   const eb = Math.exp(b);
   const step = Math.PI / (b - a);
@@ -227,7 +226,7 @@ export function seriesStrip(
   }
   const slope = timeSlope ? prep.slope : null;
   if (timeSlope && !slope) throw new Error('cosStrip: time slopes need prepareCos(..., true)');
-  if (slope) stripSumsWithSlope(prep, slope, deltas, m, S, C, R, dS, dR);
+  if (slope) stripSumsWithSlope(prep, deltas, m, S, C, R, dS, dR);
   else stripSums(prep, deltas, m, S, C, R);
   for (let i = 0; i < m; i++) {
     const j = insideAt[i];
@@ -242,7 +241,7 @@ export function seriesStrip(
       put[j] = Math.max(p, 0);
       call[j] = put[j] + mean - ek;
       if (slope && timeSlope) {
-        const d0 = slope.coef[0];
+        const d0 = slope.a0;
         timeSlope[j] =
           ek * (d0 * (k - a) + dS[i]) - ek * (d0 + dR[i]) + ea * (d0 + slope.sumOverU2Tail);
       }
@@ -254,7 +253,7 @@ export function seriesStrip(
       call[j] = Math.max(c, 0);
       put[j] = call[j] - mean + ek;
       if (slope && timeSlope) {
-        const d0 = slope.coef[0];
+        const d0 = slope.a0;
         timeSlope[j] =
           eb * (d0 + slope.sumAltTail) -
           ek * (d0 + dR[i]) -
