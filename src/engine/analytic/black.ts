@@ -99,8 +99,28 @@ export function blackScholesGreeks(p: BlackInputs & { spot: number }): BlackGree
 export function blackVega(p: Omit<BlackInputs, 'isCall'>): number {
   const { forward: F, strike: K, sigma, expiry: T, discount: df } = p;
   const sqrtT = Math.sqrt(T);
-  const s = sigma * sqrtT;
+  return blackVegaAt(F, df, Math.log(F / K), sigma * sqrtT, sqrtT);
+}
+
+/** `blackVega` from x = ln(F/K) and s = σ√T, for callers that have them. */
+export function blackVegaAt(
+  forward: number,
+  discount: number,
+  x: number,
+  s: number,
+  sqrtT: number,
+): number {
   if (!(s > 0)) return 0;
-  const d1 = Math.log(F / K) / s + 0.5 * s;
-  return df * F * normPdf(d1) * sqrtT;
+  const d1 = x / s + 0.5 * s;
+  return discount * forward * normPdf(d1) * sqrtT;
+}
+
+/**
+ * ∂b/∂s of the normalised Black price at |x| = ax: φ_c = e^{−(h² + t²)/2}/√(2π), h = ax/s,
+ * t = s/2 (Jäckel 2015, "Let's Be Rational", section 2).
+ */
+export function normalisedVega(ax: number, s: number): number {
+  const h = ax / s;
+  const t = 0.5 * s;
+  return Math.exp(-0.5 * (h * h + t * t)) * INV_SQRT_2PI;
 }

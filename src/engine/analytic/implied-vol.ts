@@ -6,10 +6,9 @@
  * the split Jäckel uses to keep each objective nearly linear. A bracket [lo, hi] is kept and any
  * step that leaves it is replaced by bisection, so the method cannot diverge.
  */
-import { normalisedBlack, normalisedOtmCall } from './black';
+import { normalisedBlack, normalisedOtmCall, normalisedVega } from './black';
 import { normInv } from './normal';
 
-const INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
 /** Relative Householder step below which the next iterate is taken as converged. */
 const STEP_CONVERGED = 1e-8;
 
@@ -48,9 +47,7 @@ export function normalisedImpliedSigma(x: number, beta: number, guess = NaN): nu
     if (iter > 0) b = normalisedOtmCall(-ax, s);
     if (b > beta) hi = Math.min(hi, s);
     else lo = Math.max(lo, s);
-    const h = ax / s;
-    const t = 0.5 * s;
-    const b1 = Math.exp(-0.5 * (h * h + t * t)) * INV_SQRT_2PI;
+    const b1 = normalisedVega(ax, s);
     const k = xx / (s * s * s) - 0.25 * s;
     const b2 = b1 * k;
     const b3 = b1 * (k * k - (3 * xx) / (s * s * s * s) - 0.25);
@@ -105,10 +102,7 @@ export function normalisedImpliedSigma(x: number, beta: number, guess = NaN): nu
 function guessIsClose(ax: number, s: number, b: number, beta: number): boolean {
   const logRatio = Math.log(b / beta);
   if (!(Math.abs(logRatio) < 1)) return false;
-  const h = ax / s;
-  const t = 0.5 * s;
-  const vega = Math.exp(-0.5 * (h * h + t * t)) * INV_SQRT_2PI;
-  return Math.abs(logRatio) * b <= 0.5 * s * vega;
+  return Math.abs(logRatio) * b <= 0.5 * s * normalisedVega(ax, s);
 }
 
 /** A closed-form or asymptotic start on the objective's own side of s_c. */

@@ -5,7 +5,7 @@
  * ∂²V/∂K² come from the COS CDF and density of the log-return; theta from the time slopes of
  * the same strip's coefficients (see `prepareCos`).
  */
-import { blackScholesGreeks } from './black';
+import { blackScholesGreeks, blackVegaAt } from './black';
 import { modelSpec, type ModelSpec } from './characteristic';
 import { cosStrip, prepareCos, type CosSettings, DEFAULT_COS_SETTINGS } from './cos';
 import { normalisedImpliedSigma } from './implied-vol';
@@ -179,7 +179,7 @@ export function priceOptions(
       vols[i] = impliedVol;
       // Black's vega D·F·φ(d1)·√T at the option's own implied vol, d1 = −k/s + s/2
       const s = impliedVol === null ? 0 : impliedVol * rootT;
-      vega[i] = s > 0 ? df * F * normPdf(-v.logMoneyness[j] / s + 0.5 * s) * rootT : 0;
+      vega[i] = blackVegaAt(F, df, -v.logMoneyness[j], s, rootT);
     }
   }
   const results: OptionResult[] = new Array(n);
