@@ -297,6 +297,9 @@ interface JumpRateOut {
   lambda: number;
 }
 
+/** Below this, e^x − 1 rounds to −1 in double precision (e^x < 2^−54). */
+const EXPM1_IS_MINUS_ONE = -38;
+
 /** Merton (1976) jumps: Λ(e^{wμ + ½δ²w²} − 1) − wΛ(e^{μ + ½δ²} − 1), Λ = λT for a constant λ. */
 function addLognormalJumps(
   jl: Extract<JumpLaw, { type: 'lognormal' }>,
@@ -318,12 +321,19 @@ function addLognormalJumps(
     const ei = mu * b + hv * 2 * a * b;
     // e^{e} − 1 = (e^{er} − 1)cos ei − (1 − cos ei) + i e^{er} sin ei, from expm1 and the half
     // angle so that neither part cancels when e is small
-    const em1 = Math.expm1(er);
     const sHalf = Math.sin(0.5 * ei);
-    const cHalf = Math.cos(0.5 * ei);
     const twoS2 = 2 * sHalf * sHalf;
-    const xr = em1 * (1 - twoS2) - twoS2;
-    const xi = (1 + em1) * (2 * sHalf * cHalf);
+    let xr: number, xi: number;
+    if (er < EXPM1_IS_MINUS_ONE) {
+      // far out in u the jump's own term has vanished: e^{er} − 1 rounds to −1, the same
+      // numbers without expm1 and the cosine
+      xr = -(1 - twoS2) - twoS2;
+      xi = 0;
+    } else {
+      const em1 = Math.expm1(er);
+      xr = em1 * (1 - twoS2) - twoS2;
+      xi = (1 + em1) * (2 * sHalf * Math.cos(0.5 * ei));
+    }
     outRe[j] += lt * (xr - a * kbar);
     outIm[j] += lt * (xi - b * kbar);
     if (rate) {

@@ -86,7 +86,6 @@ export function cosSeries(
   const planned = envelope && settings.trimTerms ? plannedTerms(envelope, step, settings) : 0;
   let capacity = Math.min(settings.maxTerms, scratch.wr.length);
   let { wr, wi, re, im, slopeRe, slopeIm } = scratch;
-  wr.fill(0);
   let n = 0;
   let capped = false;
   for (;;) {
@@ -106,7 +105,10 @@ export function cosSeries(
       scratch = { wr, wi, re, im, slopeRe, slopeIm };
     }
     if (capped) break;
-    for (let k = n; k < n + block; k++) wi[k] = k * step;
+    for (let k = n; k < n + block; k++) {
+      wr[k] = 0;
+      wi[k] = k * step;
+    }
     logCf(
       wr.subarray(n),
       wi.subarray(n),

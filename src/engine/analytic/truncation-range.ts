@@ -99,18 +99,28 @@ const CANDIDATE_RATIO = 1.5;
 const CANDIDATES = 16;
 
 /**
- * The candidates and their ln M, kept between calls (each engine runs in one thread): a typed
- * array of more than a few elements costs microseconds to allocate, more than the bound itself.
+ * The candidates, and the ones evaluated with their ln M, kept between calls (each engine runs
+ * in one thread): a typed array of more than a few elements costs microseconds to allocate,
+ * more than the bound itself.
  */
 const CANDIDATE_SCRATCH = {
   p: new Float64Array(2 * CANDIDATES),
+  at: new Float64Array(2 * CANDIDATES),
   lnM: new Float64Array(2 * CANDIDATES),
+  index: new Int32Array(2 * CANDIDATES),
 };
 
 /**
  * The range for tail mass `tailMass`, given ln M, its domain test and the law's first two
  * cumulants (which place the first candidates: a normal law's best p is √(2 ln(1/ε)/c2)).
  * Null when no candidate gives a finite bound on a side.
+ *
+ * Each side's bound is quasi-convex in p: for p > 1, with K = ln M convex and c = −ln ε > 0,
+ * (K(p) + c)/(p − 1) has a derivative whose numerator K'(p)(p − 1) − K(p) − c only grows (its
+ * slope is K''(p)(p − 1) ≥ 0); the side p < 0 is the mirror image. Along a side the candidates'
+ * bounds therefore fall and then rise, and the best of all lies next to the best of every other
+ * one: those are evaluated first, then the best one's two neighbours, which gives the same range
+ * as evaluating all of them for 19 evaluations instead of 32.
  */
 export function chernoffRange(
   logMoment: LogMoment,
@@ -122,23 +132,70 @@ export function chernoffRange(
   const gaussianBest = Math.sqrt((-2 * logEps) / c2);
   // outward from the gaussian optimum's 1/1.5^11: fat tails want a smaller p than a normal law
   const first = gaussianBest / CANDIDATE_RATIO ** (CANDIDATES - 5);
-  const { p, lnM } = CANDIDATE_SCRATCH;
+  const { p, index } = CANDIDATE_SCRATCH;
   const lowerCount = candidates(p, 0, -1, first, finiteAt);
-  const count = lowerCount + candidates(p, lowerCount, 1, first, finiteAt);
-  logMoment(p, lnM, count);
-  let a = -Infinity;
-  let b = Infinity;
+  const upperCount = candidates(p, CANDIDATES, 1, first, finiteAt);
+  // every other candidate on each side
+  let count = 0;
+  for (let i = 0; i < lowerCount; i += 2) index[count++] = i;
+  for (let i = 0; i < upperCount; i += 2) index[count++] = CANDIDATES + i;
+  const bounds = { a: -Infinity, b: Infinity, lowerBest: -1, upperBest: -1 };
+  evaluate(logMoment, logEps, count, bounds);
+  // then the neighbours of each side's best
+  count = neighbours(bounds.lowerBest, 0, lowerCount, 0);
+  count = neighbours(bounds.upperBest, CANDIDATES, upperCount, count);
+  evaluate(logMoment, logEps, count, bounds);
+  const { a, b } = bounds;
+  return Number.isFinite(a) && Number.isFinite(b) && a < b ? { a, b } : null;
+}
+
+/** Writes the neighbours of position `best` (−1: none) on a side into index from `count`. */
+function neighbours(best: number, offset: number, sideCount: number, count: number): number {
+  const { index } = CANDIDATE_SCRATCH;
+  if (best < 0) return count;
+  if (best > offset) index[count++] = best - 1;
+  if (best + 1 < offset + sideCount) index[count++] = best + 1;
+  return count;
+}
+
+/**
+ * ln M at the candidates index[0..count) (positions in CANDIDATE_SCRATCH.p) in one call, and the
+ * bounds they give folded into `bounds`, with the position of each side's best so far.
+ */
+function evaluate(
+  logMoment: LogMoment,
+  logEps: number,
+  count: number,
+  bounds: { a: number; b: number; lowerBest: number; upperBest: number },
+): void {
+  if (count === 0) return;
+  const { p, at, lnM, index } = CANDIDATE_SCRATCH;
+  for (let i = 0; i < count; i++) at[i] = p[index[i]];
+  logMoment(at, lnM, count);
   for (let i = 0; i < count; i++) {
     if (!Number.isFinite(lnM[i])) continue;
-    if (p[i] < 0) a = Math.max(a, (logEps - lnM[i]) / -p[i]);
-    else b = Math.min(b, (lnM[i] - logEps) / (p[i] - 1));
+    const q = at[i];
+    if (q < 0) {
+      const a = (logEps - lnM[i]) / -q;
+      if (a > bounds.a) {
+        bounds.a = a;
+        bounds.lowerBest = index[i];
+      }
+    } else {
+      const b = (lnM[i] - logEps) / (q - 1);
+      if (b < bounds.b) {
+        bounds.b = b;
+        bounds.upperBest = index[i];
+      }
+    }
   }
-  return Number.isFinite(a) && Number.isFinite(b) && a < b ? { a, b } : null;
 }
 
 /**
  * Writes the candidates on one side into p from `at`: −x_i below 0 (side −1) or 1 + x_i above 1
  * (side +1), x_i = first·1.5^i, up to the first outside the moments' domain; returns how many.
+ * The domain of a moment generating function is an interval, so only every other candidate is
+ * tested until one is outside, and then the one before it.
  */
 function candidates(
   p: Float64Array,
@@ -150,8 +207,9 @@ function candidates(
   let x = first;
   for (let i = 0; i < CANDIDATES; i++, x *= CANDIDATE_RATIO) {
     const candidate = side < 0 ? -x : 1 + x;
-    if (!finiteAt(candidate)) return i;
     p[at + i] = candidate;
+    if (i % 2 === 1) continue;
+    if (!finiteAt(candidate)) return i > 0 && finiteAt(p[at + i - 1]) ? i : Math.max(0, i - 1);
   }
-  return CANDIDATES;
+  return finiteAt(p[at + CANDIDATES - 1]) ? CANDIDATES : CANDIDATES - 1;
 }
