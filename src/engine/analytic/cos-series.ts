@@ -88,6 +88,7 @@ export function cosSeries(
   let { wr, wi, re, im, slopeRe, slopeIm } = scratch;
   let n = 0;
   let capped = false;
+  const defaultBlock = block;
   for (;;) {
     if (planned > 0) block = planned;
     while (n + block > capacity) {
@@ -117,18 +118,22 @@ export function cosSeries(
       block,
       withSlope ? { re: slopeRe.subarray(n), im: slopeIm.subarray(n) } : undefined,
     );
-    let blockMax = -Infinity;
-    for (let k = n; k < n + block; k++) blockMax = Math.max(blockMax, re[k]);
-    // The payoff coefficients fall like 1/(1 + u²), so that is the weight a neglected
-    // characteristic-function value carries into a price (per unit forward).
-    const uStart = n * step;
     n += block;
+    if (planned > 0) break;
+    if (n < settings.minTerms) continue;
+    if (!settings.trimTerms) {
+      if (blockBelowTolerance(re, n - block, n, step, settings.tailTolerance)) break;
+      continue;
+    }
+    // trimmed series stop as soon as their last terms are below the tolerance and the
+    // neglected ones, extrapolated, allow an end among the computed terms; the next block
+    // is sized to reach that point
     if (
-      planned > 0 ||
-      (n >= settings.minTerms &&
-        Math.exp(blockMax) / (1 + uStart * uStart) < settings.tailTolerance)
+      blockBelowTolerance(re, n - STOP_SPAN, n, step, settings.tailTolerance) &&
+      trimmedLength(re, n, step, settings) < n
     )
       break;
+    block = Math.min(defaultBlock, Math.max(FINAL_BLOCK, termsToTolerance(re, n, step, settings)));
   }
   if (settings.trimTerms) n = trimmedLength(re, n, step, settings);
   const stride = withSlope ? 6 : 4;
@@ -190,6 +195,54 @@ export function cosSeries(
     mean: 1,
     meanSlope: 0,
   };
+}
+
+/**
+ * A trimmed series stops only when its last STOP_SPAN terms are all below the price tolerance
+ * (a law whose |φ| oscillates cannot end on one small value), and computes at least
+ * FINAL_BLOCK terms at a time.
+ */
+const STOP_SPAN = 16;
+const FINAL_BLOCK = 16;
+
+/** Whether every term in [from, to) is below `tolerance` in the weight it carries into a price. */
+function blockBelowTolerance(
+  re: Float64Array,
+  from: number,
+  to: number,
+  step: number,
+  tolerance: number,
+): boolean {
+  let blockMax = -Infinity;
+  for (let k = from; k < to; k++) blockMax = Math.max(blockMax, re[k]);
+  // The payoff coefficients fall like 1/(1 + u²), so that is the weight a neglected
+  // characteristic-function value carries into a price (per unit forward).
+  const uStart = from * step;
+  return Math.exp(blockMax) / (1 + uStart * uStart) < tolerance;
+}
+
+/**
+ * How many more terms the last 32 terms' rate of decay says the series needs before its tail
+ * is below both tolerances, with a few to spare; Infinity without a decay to extrapolate.
+ */
+function termsToTolerance(
+  re: Float64Array,
+  n: number,
+  step: number,
+  settings: CosSettings,
+): number {
+  const back = Math.min(32, n - 1);
+  const logRate = (re[n - 1] - re[n - 1 - back]) / back;
+  if (!(logRate < 0)) return Infinity;
+  const uEnd = (n - 1) * step;
+  const tailFactor = -Math.log1p(-Math.exp(logRate)); // ln 1/(1 − r)
+  const scale = (2 * step) / Math.PI;
+  // ln of the tails after n − 1 + m terms: re + m·logRate + ln 1/(1 − r) + the weight
+  const priceExcess =
+    re[n - 1] + tailFactor - Math.log1p(uEnd * uEnd) - Math.log(settings.tailTolerance);
+  const densityExcess =
+    re[n - 1] + tailFactor + Math.log(scale) - Math.log(settings.densityTolerance);
+  return Math.ceil(Math.max(priceExcess, densityExcess, 0) / -logRate) + 4;
 }
 
 /** An upper bound on |φ(u)| for u ≥ 0 that falls as u grows. */

@@ -67,24 +67,51 @@ export function lewisPrice(
   const F = forwardPrice(market, expiry);
   const df = discountFactor(market, expiry);
   const k = Math.log(strike / F);
+  // ∫₀^∞ Re(e^{−iuk} φ(u − i/2)) / (u² + ¼) du
+  const integral = fourierIntegral(spec, expiry, 0.5, k, (u) => 1 / (u * u + 0.25));
+  const callValue = df * (F - (Math.sqrt(F * strike) / Math.PI) * integral);
+  return type === 'call' ? callValue : callValue - df * (F - strike);
+}
+
+/**
+ * The density of Y = ln(S_T/F_T) at k by Fourier inversion, f(k) = (1/π) ∫₀^∞ Re(e^{−iuk} φ(u)) du
+ * (Gil-Pelaez 1951), on the same panels: an independent check of the COS density, and so of
+ * gamma, which is DF·K·f(k)/S².
+ */
+export function lewisDensity(model: Model, k: number, expiry: number): number {
+  return fourierIntegral(modelSpec(model), expiry, 0, k, () => 1) / Math.PI;
+}
+
+/**
+ * ∫₀^∞ Re(e^{−iuk} φ(u − i·shift))·weight(u) du: the upper limit where the integrand is
+ * negligible, then Gauss-Legendre panels doubled until two passes agree.
+ */
+function fourierIntegral(
+  spec: ReturnType<typeof modelSpec>,
+  expiry: number,
+  shift: number,
+  k: number,
+  weight: (u: number) => number,
+): number {
   const integrand = (u: Float64Array, out: Float64Array) => {
     const n = u.length;
-    const wr = new Float64Array(n).fill(0.5);
+    const wr = new Float64Array(n).fill(shift);
     const re = new Float64Array(n);
     const im = new Float64Array(n);
     logCharacteristic(spec, expiry, wr, u, re, im, n);
-    for (let j = 0; j < n; j++) {
-      const m = Math.exp(re[j]);
-      out[j] = (m * Math.cos(im[j] - u[j] * k)) / (u[j] * u[j] + 0.25);
-    }
+    for (let j = 0; j < n; j++)
+      out[j] = Math.exp(re[j]) * Math.cos(im[j] - u[j] * k) * weight(u[j]);
   };
-  // Upper limit: where |φ(u − i/2)| / u² is negligible.
+  // Upper limit: where |φ(u − i·shift)|·weight(u)·u is negligible (the modulus, so that a
+  // zero of the cosine cannot end it early)
   let upper = 50;
+  const probe = new Float64Array(1);
+  const logModulus = new Float64Array(1);
+  const phase = new Float64Array(1);
   for (let it = 0; it < 60; it++) {
-    const probe = new Float64Array([upper]);
-    const val = new Float64Array(1);
-    integrand(probe, val);
-    if (Math.abs(val[0]) * upper < 1e-18) break;
+    probe[0] = upper;
+    logCharacteristic(spec, expiry, Float64Array.of(shift), probe, logModulus, phase, 1);
+    if (Math.exp(logModulus[0]) * weight(upper) * upper < 1e-18) break;
     upper *= 1.5;
   }
   let panels = 16;
@@ -96,6 +123,5 @@ export function lewisPrice(
     previous = next;
     if (done) break;
   }
-  const callValue = df * (F - (Math.sqrt(F * strike) / Math.PI) * previous);
-  return type === 'call' ? callValue : callValue - df * (F - strike);
+  return previous;
 }

@@ -113,7 +113,8 @@ export function modelVols(
       new Float64Array(n),
       new Float64Array(n),
     );
-    const vols = stripImpliedVols(call, put, ks, T);
+    // exact roots: the Jacobian's finite differences would read their last bits as noise
+    const vols = stripImpliedVols(call, put, ks, T, true);
     idx.forEach((qi, j) => (out[qi] = vols[j]));
   }
   return out;
