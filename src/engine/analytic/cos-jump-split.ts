@@ -13,7 +13,13 @@
  */
 import { logCharacteristic, type ModelSpec, type TimeSlopeOut } from './characteristic';
 import { cumulants } from './cumulants';
-import { cosSeries, type CosSeries, type Envelope, type LogCf } from './cos-series';
+import {
+  cosSeries,
+  type CosSeries,
+  type Envelope,
+  type LogCf,
+  type TableAllocator,
+} from './cos-series';
 import type { CosSettings } from './cos';
 import { lawRange } from './cos-range';
 import type { TruncationRange } from './truncation-range';
@@ -86,6 +92,7 @@ export function jumpSplitParts(
   settings: CosSettings,
   withSlope: boolean,
   single: TruncationRange,
+  allocate?: TableAllocator,
 ): MixturePart[] | null {
   const j = spec.jumps;
   const moments = jumpMoments(j);
@@ -126,14 +133,10 @@ export function jumpSplitParts(
   const uJump = Math.min(uQuiet, Math.sqrt(2 * Math.log(pJump / tolerance)) / spread);
   if (quietWidth * uQuiet + singleWidth * uJump >= WORTHWHILE * singleWidth * uQuiet) return null;
 
-  const quietSeries = cosSeries(
-    quietRange.a,
-    quietRange.b,
-    settings,
-    withSlope,
-    quietCf,
-    PART_BLOCK,
-  );
+  const quietSeries = cosSeries(quietRange.a, quietRange.b, settings, withSlope, quietCf, {
+    block: PART_BLOCK,
+    allocate,
+  });
   // E[e^Y | N = 0] = e^{−Λκ̄}
   quietSeries.mean = Math.exp(shift);
   quietSeries.meanSlope = -lambdaNow * kbar * quietSeries.mean;
@@ -153,8 +156,12 @@ export function jumpSplitParts(
     },
     withSlope,
     jumpCf,
-    PART_BLOCK,
-    j.type === 'lognormal' ? lognormalPartEnvelope(j.jumpStdev, lambdaT, p0, pJump) : undefined,
+    {
+      block: PART_BLOCK,
+      envelope:
+        j.type === 'lognormal' ? lognormalPartEnvelope(j.jumpStdev, lambdaT, p0, pJump) : undefined,
+      allocate,
+    },
   );
   // E[e^Y | N ≥ 1] = (1 − e^{−Λ}·e^{−Λκ̄})/(1 − e^{−Λ}), so that the two parts' means average to 1
   const quietMass = p0 * quietSeries.mean; // e^{−Λ(1 + κ̄)}

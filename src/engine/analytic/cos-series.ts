@@ -50,6 +50,45 @@ export interface CosSeries {
   meanSlope: number;
 }
 
+/**
+ * Where a series' table goes: by default an array of its own; a caller that uses its series
+ * and drops them (one pricing call, say) can hand out space in a buffer it reuses instead.
+ */
+export type TableAllocator = (size: number) => Float64Array;
+
+export interface SeriesOptions {
+  /** characteristic-function values computed at a time until the series has decayed */
+  block?: number;
+  /** a bound on |φ| that plans the terms before any is computed */
+  envelope?: Envelope;
+  allocate?: TableAllocator;
+}
+
+/**
+ * Space for the tables of series used within one call and then dropped, in a buffer kept
+ * between calls: each typed array of its own costs microseconds to make. `reset` at the start
+ * of each call hands the space out again; only the tables of the calls since then are valid.
+ */
+export class TableArena {
+  private buffer = new Float64Array(1 << 14);
+  private used = 0;
+
+  reset(): void {
+    this.used = 0;
+  }
+
+  readonly allocate: TableAllocator = (size) => {
+    if (this.used + size > this.buffer.length) {
+      // the tables handed out so far keep the old buffer
+      this.buffer = new Float64Array(Math.max(2 * this.buffer.length, size));
+      this.used = 0;
+    }
+    const table = this.buffer.subarray(this.used, this.used + size);
+    this.used += size;
+    return table;
+  };
+}
+
 /** Characteristic-function values are computed, and the tail tested, this many at a time. */
 const BLOCK = 64;
 
@@ -78,8 +117,7 @@ export function cosSeries(
   settings: CosSettings,
   withSlope: boolean,
   logCf: LogCf,
-  block = BLOCK,
-  envelope?: Envelope,
+  { block = BLOCK, envelope, allocate }: SeriesOptions = {},
 ): CosSeries {
   const step = Math.PI / (b - a);
   // with a bound on |φ| the terms are known before any is computed, and come in one call
@@ -137,7 +175,7 @@ export function cosSeries(
   }
   if (settings.trimTerms) n = trimmedLength(re, n, step, settings);
   const stride = withSlope ? 6 : 4;
-  const table = new Float64Array(n * stride);
+  const table = allocate ? allocate(n * stride) : new Float64Array(n * stride);
   const scale = 2 / (b - a);
   let sum = 0;
   let alt = 0;

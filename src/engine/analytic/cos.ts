@@ -10,7 +10,7 @@
 import { logCharacteristic, type ModelSpec } from './characteristic';
 import { cumulants, diffusionVariance } from './cumulants';
 import { stripSums, stripSumsWithSlope } from './cos-sums';
-import { cosSeries, type CosSeries } from './cos-series';
+import { cosSeries, type CosSeries, type TableAllocator } from './cos-series';
 import { jumpSplitParts, type MixturePart } from './cos-jump-split';
 import { lawRange } from './cos-range';
 
@@ -67,17 +67,19 @@ const EMPTY = new Float64Array(0);
 /**
  * Prepares one expiry's series. With `withSlope`, the coefficients' time slopes come from the
  * same characteristic-function values (∂A_n/∂τ = (2/(b − a)) Re[φ(u_n)·∂τ ln φ(u_n)·e^{−i u_n a}],
- * the range held), so a calendar theta needs no second or third strip.
+ * the range held), so a calendar theta needs no second or third strip. `allocate` places the
+ * series' tables (see `TableArena`), for a caller that drops the preparation after use.
  */
 export function prepareCos(
   spec: ModelSpec,
   T: number,
   settings: CosSettings = DEFAULT_COS_SETTINGS,
   withSlope = false,
+  allocate?: TableAllocator,
 ): CosExpiry {
   const cum = cumulants(spec, T);
   const { a, b } = lawRange(spec, T, settings.tailMass, cum);
-  const parts = jumpSplitParts(spec, T, settings, withSlope, { a, b });
+  const parts = jumpSplitParts(spec, T, settings, withSlope, { a, b }, allocate);
   if (parts) {
     return {
       // the range a single series would take: where the law lives, for callers that grid it
@@ -99,8 +101,13 @@ export function prepareCos(
       parts,
     };
   }
-  const series = cosSeries(a, b, settings, withSlope, (wr, wi, re, im, count, slope) =>
-    logCharacteristic(spec, T, wr, wi, re, im, count, slope),
+  const series = cosSeries(
+    a,
+    b,
+    settings,
+    withSlope,
+    (wr, wi, re, im, count, slope) => logCharacteristic(spec, T, wr, wi, re, im, count, slope),
+    { allocate },
   );
   return {
     ...series,

@@ -8,6 +8,7 @@
 import { blackScholesGreeks, blackVegaAt } from './black';
 import { modelSpec, type ModelSpec } from './characteristic';
 import { cosStrip, prepareCos, type CosSettings, DEFAULT_COS_SETTINGS } from './cos';
+import { TableArena, type TableAllocator } from './cos-series';
 import { normalisedImpliedSigma } from './implied-vol';
 import { discountFactor, forwardPrice, marketLogSlopes } from '../core/market';
 import { normCdf, normPdf } from './normal';
@@ -48,7 +49,8 @@ export interface StripValues {
 /**
  * Prices one expiry's strikes (as log-moneyness ln(K/F)) per unit forward. The five arrays are
  * views on `buffer` (5 × the strikes long) when given, so that a caller pricing many expiries
- * makes one allocation: each typed array's own costs microseconds.
+ * makes one allocation: each typed array's own costs microseconds. `allocate` places the
+ * series' tables, which the strip drops once priced (see `TableArena`).
  */
 export function priceStrip(
   spec: ModelSpec,
@@ -58,6 +60,7 @@ export function priceStrip(
   settings: CosSettings = DEFAULT_COS_SETTINGS,
   withTimeSlope = false,
   buffer: Float64Array = new Float64Array(5 * logMoneyness.length),
+  allocate?: TableAllocator,
 ): StripValues {
   const n = logMoneyness.length;
   const part = (i: number) => buffer.subarray(i * n, (i + 1) * n);
@@ -70,7 +73,7 @@ export function priceStrip(
     density: part(3),
     timeSlope: withTimeSlope ? part(4) : null,
   };
-  const prep = prepareCos(spec, expiry, settings, withTimeSlope);
+  const prep = prepareCos(spec, expiry, settings, withTimeSlope, allocate);
   cosStrip(prep, logMoneyness, out.call, out.put, out.cdf, out.density, out.timeSlope ?? undefined);
   return out;
 }
@@ -182,6 +185,7 @@ export function priceOptions(
   const take = (size: number) => work.subarray(free, (free += size));
   const vols: (number | null)[] = new Array(n);
   const spec = modelSpec(model);
+  TABLES.reset();
   for (const [expiry, indices] of byExpiry) {
     const strikes = indices.map((i) => options[i].strike);
     const m = strikes.length;
@@ -248,6 +252,9 @@ interface ExpiryValues {
   vols: (number | null)[];
 }
 
+/** The series tables of one `priceOptions` call (each engine runs in one thread). */
+const TABLES = new TableArena();
+
 function valueAt(
   spec: ModelSpec,
   model: Model,
@@ -262,7 +269,7 @@ function valueAt(
   const df = discountFactor(market, expiry);
   strikes.forEach((K, j) => (ks[j] = Math.log(K / F)));
   if (isBlackScholes(spec)) return blackScholesValues(model, market, expiry, strikes, ks);
-  const v = priceStrip(spec, market, expiry, ks, settings, true, stripBuffer);
+  const v = priceStrip(spec, market, expiry, ks, settings, true, stripBuffer, TABLES.allocate);
   const vols = stripImpliedVols(v.call, v.put, ks, expiry);
   // discounted in place: the strip's arrays are this call's own
   for (let j = 0; j < ks.length; j++) {

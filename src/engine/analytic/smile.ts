@@ -5,6 +5,7 @@
  */
 import { modelSpec, type ModelSpec } from './characteristic';
 import { cosStrip, prepareCos, type CosExpiry, DEFAULT_COS_SETTINGS } from './cos';
+import { TableArena } from './cos-series';
 import { forwardPrice } from '../core/market';
 import { normCdf, normInv } from './normal';
 import { impliedVolFromOtm, stripImpliedVols } from './pricing';
@@ -40,6 +41,16 @@ export interface SmileSurface {
 const ONE = { k: new Float64Array(1), c: new Float64Array(1), p: new Float64Array(1) };
 const ONE_CDF = new Float64Array(1);
 const ONE_DENSITY = new Float64Array(1);
+
+/**
+ * Preparations used within one call of this module and dropped: their tables share one buffer,
+ * so each takes the space of the one before it (one is alive at a time).
+ */
+const TABLES = new TableArena();
+function transientPrep(spec: ModelSpec, expiry: number): CosExpiry {
+  TABLES.reset();
+  return prepareCos(spec, expiry, DEFAULT_COS_SETTINGS, false, TABLES.allocate);
+}
 
 /** Vol at one log-moneyness from a prepared expiry. */
 function volAt(prep: CosExpiry, k: number): number | null {
@@ -95,7 +106,7 @@ export function smileSlice(
   moneyness: readonly number[],
   spacing: StrikeSpacing = 'log-moneyness',
 ): SmileSlice {
-  const prep = prepareCos(spec, expiry, DEFAULT_COS_SETTINGS);
+  const prep = transientPrep(spec, expiry);
   const atm = volAt(prep, 0);
   const logMoneyness = expiryGrid(spec, expiry, atm, moneyness, spacing);
   const F = forwardPrice(market, expiry);
@@ -171,7 +182,7 @@ export function logReturnDensity(
   expiry: number,
   points: readonly number[],
 ): number[] {
-  const prep = prepareCos(modelSpec(model), expiry, DEFAULT_COS_SETTINGS);
+  const prep = transientPrep(modelSpec(model), expiry);
   const n = points.length;
   const scratch = () => new Float64Array(n);
   const density = scratch();
@@ -204,10 +215,10 @@ export function termStructureExpiries(
 
 /** ATM (at the forward) implied vol at one expiry; null where it is not defined. */
 export const atmVolAt = (spec: ModelSpec, expiry: number): number | null =>
-  volAt(prepareCos(spec, expiry, DEFAULT_COS_SETTINGS), 0);
+  volAt(transientPrep(spec, expiry), 0);
 
 /** ATM (at the forward) implied vols at the given expiries. */
 export function atmTermStructure(model: Model, expiries: readonly number[]): (number | null)[] {
   const spec = modelSpec(model);
-  return expiries.map((t) => volAt(prepareCos(spec, t, DEFAULT_COS_SETTINGS), 0));
+  return expiries.map((t) => volAt(transientPrep(spec, t), 0));
 }
