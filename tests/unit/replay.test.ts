@@ -12,6 +12,7 @@ import {
   tracePath,
   type ReplayRequest,
   checkReplay,
+  runtimeName,
   summaryOf,
   type SavedReplayRun,
 } from '../../src/engine/replay';
@@ -209,6 +210,29 @@ describe('hedge replay', () => {
     const same = checkReplay(stored, nudged, '0.1.0');
     expect(same.matches).toBe(false);
     expect(same.message).toContain('the engine version is the same');
+    expect(same.message).toContain('if it was computed in another browser');
     expect(same.message).toContain(saved.summaries[0].digest);
+    // a run that records its JavaScript engine: another browser is named as the likely cause
+    const chromium =
+      'Mozilla/5.0 (X11; Linux x86_64) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/156.0.0.0 Safari/537.36';
+    const firefox = 'Mozilla/5.0 (X11; Linux x86_64; rv:140.0) Gecko/20100101 Firefox/140.0';
+    const recorded = { ...stored, runtime: chromium };
+    expect(checkReplay(recorded, again, '0.1.0', firefox).matches).toBe(true);
+    const elsewhere = checkReplay(recorded, nudged, '0.1.0', firefox);
+    expect(elsewhere.message).toContain('computed under Chrome 156 and now under Firefox 140');
+    expect(checkReplay(recorded, nudged, '0.1.0', chromium).message).toContain(
+      'the browser are the same, so this is a defect to report',
+    );
   }, 60000);
+
+  it('names the browser a run was computed in by its most specific product token', () => {
+    const edge =
+      'Mozilla/5.0 (Windows NT 10.0; Win64; x64) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/131.0.0.0 Safari/537.36 Edg/131.0.0.0';
+    const safari =
+      'Mozilla/5.0 (Macintosh; Intel Mac OS X 10_15_7) AppleWebKit/605.1.15 (KHTML, like Gecko) Version/18.1 Safari/605.1.15';
+    expect(runtimeName(edge)).toBe('Edge 131');
+    expect(runtimeName(safari)).toBe('Safari 18');
+    expect(runtimeName('Node v20.20.2')).toBe('Node 20');
+    expect(runtimeName('x'.repeat(80))).toHaveLength(58);
+  });
 });

@@ -20,6 +20,32 @@ export interface SavedReplayRun {
   compare?: HedgeSettings;
   seed: number;
   summaries: RunSummary[];
+  /**
+   * The JavaScript engine that computed it: the browser's user agent (or "Node v20…"). Engines
+   * may round the last bit of Math.exp, Math.log, Math.sin … differently (measured: Chromium 156
+   * and Node 20 differ on 3–11 % of arguments of exp, log, sin, cos, atan2 and pow), so a run
+   * replays bit for bit under the same one.
+   * Absent from runs saved before it was recorded.
+   */
+  runtime?: string;
+}
+
+/** A short name for a runtime string: the browser and its major version, else the string. */
+export function runtimeName(runtime: string): string {
+  // Edge and Opera also name Chrome, and Chrome names Safari: the most specific first
+  for (const [pattern, name] of [
+    [/Edg\/(\d+)/, 'Edge'],
+    [/OPR\/(\d+)/, 'Opera'],
+    [/Firefox\/(\d+)/, 'Firefox'],
+    [/HeadlessChrome\/(\d+)/, 'headless Chrome'],
+    [/Chrome\/(\d+)/, 'Chrome'],
+    [/Version\/(\d+)[^ ]* (?:Mobile\/\S+ )?Safari/, 'Safari'],
+    [/^Node v?(\d+)/, 'Node'],
+  ] as const) {
+    const m = pattern.exec(runtime);
+    if (m) return `${name} ${m[1]}`;
+  }
+  return runtime.length > 60 ? `${runtime.slice(0, 57)}…` : runtime;
 }
 
 export const summaryOf = (s: ReplaySummary): RunSummary => ({
@@ -66,6 +92,7 @@ export function checkReplay(
   saved: SavedReplayRun,
   fresh: RunSummary[],
   engineVersion: string,
+  runtime?: string,
 ): ReplayCheck {
   const same = (a: unknown, b: unknown): boolean =>
     typeof a === 'number' && typeof b === 'number'
@@ -86,9 +113,15 @@ export function checkReplay(
       matches: true,
       message: `matches to the last bit (engine ${engineVersion}, digest ${fresh.map((f) => f.digest).join(', ')})`,
     };
+  const roundingNote =
+    'JavaScript engines may round the last bit of Math.exp, Math.log or Math.sin differently';
   const why =
     saved.engineVersion !== engineVersion
       ? `it was saved with engine ${saved.engineVersion} and this is engine ${engineVersion}`
-      : `the engine version is the same (${engineVersion}), so this is a defect to report`;
+      : saved.runtime && runtime && saved.runtime !== runtime
+        ? `it was computed under ${runtimeName(saved.runtime)} and now under ${runtimeName(runtime)}: ${roundingNote}, so a run compares bit for bit under the same browser and version`
+        : saved.runtime && runtime
+          ? `the engine version (${engineVersion}) and the browser are the same, so this is a defect to report`
+          : `the engine version is the same (${engineVersion}); the run does not record its browser: if it was computed in another browser or version, ${roundingNote}, otherwise this is a defect to report`;
   return { matches: false, message: `does not match: ${why}. ${differing.join('; ')}` };
 }

@@ -124,6 +124,7 @@ function ReplayWorkspace({
       ...(view.requests[pair] ? { compare: view.requests[pair].hedge } : {}),
       seed: view.requests[0].seed,
       summaries: view.results.map(summaryOf),
+      runtime: navigator.userAgent,
     };
     await save.mutateAsync({
       ...source.document,
@@ -137,7 +138,7 @@ function ReplayWorkspace({
     if (fresh)
       setCheck({
         id: run.id,
-        result: checkReplay(run, fresh.results.map(summaryOf), ENGINE_VERSION),
+        result: checkReplay(run, fresh.results.map(summaryOf), ENGINE_VERSION, navigator.userAgent),
       });
   };
 
@@ -254,8 +255,8 @@ function ReplayWorkspace({
       {!view ? (
         <p className="text-muted">
           Build the position, choose the hedge and press Replay hedge. The same position, hedge,
-          paths and seed give the same P&amp;L to the last bit on any machine and with any number of
-          workers.
+          paths and seed give the same P&amp;L to the last bit on any machine with the same browser
+          and version, and with any number of workers.
         </p>
       ) : (
         <>

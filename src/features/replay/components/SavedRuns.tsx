@@ -1,5 +1,10 @@
 /** The replay runs saved in a scenario, each with Open and Replay, and the last check's verdict. */
-import { type ReplayCheck, type SavedReplayRun, runRequests } from '../../../engine/replay';
+import {
+  type ReplayCheck,
+  type SavedReplayRun,
+  runRequests,
+  runtimeName,
+} from '../../../engine/replay';
 import { hedgeName } from './ReplayStats';
 import { formatDateTime } from '../../../components/format';
 
@@ -32,6 +37,7 @@ export function SavedRuns({
               {run.request.position.length} leg{run.request.position.length > 1 ? 's' : ''} ·{' '}
               {runRequests(run).map(hedgeName).join(' vs ')} · {run.request.paths.toLocaleString()}{' '}
               paths · seed {run.seed} · engine {run.engineVersion}
+              {run.runtime ? ` · ${runtimeName(run.runtime)}` : ''}
             </span>
             <span className="ml-auto flex gap-3">
               <button type="button" className="text-teal" onClick={() => onOpen(run)}>
