@@ -32,6 +32,7 @@ import {
   type Model,
 } from '../../src/engine/core';
 import seedrandom from 'seedrandom';
+import { randomHestonFamily } from './helpers';
 
 /** ln φ of N(−σ²/2, σ²) at w = iu: −½σ²(u² + iu). */
 function normalLogCf(variance: number) {
@@ -178,31 +179,11 @@ describe('gamma at short expiries against the density by Fourier inversion', () 
     const u = (lo: number, hi: number) => lo + (hi - lo) * rng();
     const market: Market = { spot: 100, rate: 0.02, dividendYield: 0.01 };
     for (let i = 0; i < 60; i++) {
-      const H = {
-        v0: u(0.005, 0.2),
-        kappa: u(0.2, 5),
-        theta: u(0.01, 0.15),
-        volOfVol: u(0.1, 1.2),
-        rho: u(-0.95, 0.7),
-      };
-      const J = { jumpIntensity: u(0.05, 3), jumpMean: u(-0.25, 0.1), jumpStdev: u(0.01, 0.3) };
-      const model = [
-        { kind: 'heston', ...H },
-        { kind: 'bates', ...H, ...J },
-        { kind: 'svcj', ...H, ...J, varianceJumpMean: u(0.005, 0.1), jumpCorrelation: u(-1, 0.5) },
-        {
-          kind: 'heston-kou',
-          ...H,
-          jumpIntensity: u(0.05, 2),
-          upProbability: u(0.1, 0.6),
-          upMean: u(0.01, 0.15),
-          downMean: u(0.02, 0.2),
-        },
-      ][i % 4] as Model;
+      const { model, v0 } = randomHestonFamily(i, u);
       const T = Math.exp(u(Math.log(1 / 365), Math.log(30 / 365)));
       const F = forwardPrice(market, T);
       const df = discountFactor(market, T);
-      const sd = Math.sqrt(H.v0 * T);
+      const sd = Math.sqrt(v0 * T);
       const options = [-2, -1, 0, 1, 2].map((z) => ({
         type: 'call' as const,
         strike: F * Math.exp(z * sd),

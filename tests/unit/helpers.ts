@@ -43,3 +43,42 @@ export const MODEL_CASES: Record<'heston' | 'merton' | 'bates' | 'heston-kou', M
     downMean: 0.09,
   },
 };
+
+/**
+ * A random law of the Heston family for property sweeps: Heston, Bates, SVCJ and Heston-Kou in
+ * turn by `i`, parameters uniform over wide ranges (ρ from −0.95 to 0.6, ξ up to 1.5, up to
+ * three jumps a year); `u(lo, hi)` draws one uniform number.
+ */
+export function randomHestonFamily(
+  i: number,
+  u: (lo: number, hi: number) => number,
+): { model: Model; v0: number } {
+  const diffusion = {
+    v0: u(0.005, 0.3),
+    kappa: u(0.2, 5),
+    theta: u(0.01, 0.2),
+    volOfVol: u(0.1, 1.5),
+    rho: u(-0.95, 0.6),
+  };
+  const jumps = { jumpIntensity: u(0, 3), jumpMean: u(-0.3, 0.1), jumpStdev: u(0.01, 0.3) };
+  const models: Model[] = [
+    { kind: 'heston', ...diffusion },
+    { kind: 'bates', ...diffusion, ...jumps },
+    {
+      kind: 'svcj',
+      ...diffusion,
+      ...jumps,
+      varianceJumpMean: u(0, 0.1),
+      jumpCorrelation: u(-1, 0.5),
+    },
+    {
+      kind: 'heston-kou',
+      ...diffusion,
+      jumpIntensity: u(0, 3),
+      upProbability: u(0, 1),
+      upMean: u(0.01, 0.1),
+      downMean: u(0.01, 0.2),
+    },
+  ];
+  return { model: models[i % 4], v0: diffusion.v0 };
+}

@@ -20,6 +20,7 @@ import {
 import { logCharacteristic } from '../../src/engine/analytic/characteristic';
 import { cumulants, lewisPrice, modelSpec, normCdf, priceOptions } from '../../src/engine/analytic';
 import seedrandom from 'seedrandom';
+import { randomHestonFamily } from './helpers';
 import { forwardPrice, type Market, type Model } from '../../src/engine/core';
 import { quantlibHestonPrices } from '../support/quantlib';
 
@@ -201,33 +202,7 @@ describe("the range from Chernoff's bound", () => {
     const u = (lo: number, hi: number) => lo + (hi - lo) * rng();
     let fatTails = 0;
     for (let i = 0; i < 300; i++) {
-      const diffusion = {
-        v0: u(0.005, 0.3),
-        kappa: u(0.2, 5),
-        theta: u(0.01, 0.2),
-        volOfVol: u(0.1, 1.5),
-        rho: u(-0.95, 0.6),
-      };
-      const jumps = { jumpIntensity: u(0, 3), jumpMean: u(-0.3, 0.1), jumpStdev: u(0.01, 0.3) };
-      const model = [
-        { kind: 'heston', ...diffusion },
-        { kind: 'bates', ...diffusion, ...jumps },
-        {
-          kind: 'svcj',
-          ...diffusion,
-          ...jumps,
-          varianceJumpMean: u(0, 0.1),
-          jumpCorrelation: u(-1, 0.5),
-        },
-        {
-          kind: 'heston-kou',
-          ...diffusion,
-          jumpIntensity: u(0, 3),
-          upProbability: u(0, 1),
-          upMean: u(0.01, 0.1),
-          downMean: u(0.01, 0.2),
-        },
-      ][i % 4] as Model;
+      const { model } = randomHestonFamily(i, u);
       const T = Math.exp(u(Math.log(1 / 365), Math.log(10)));
       const spec = modelSpec(model);
       const expected = exhaustive(spec, T);
