@@ -167,7 +167,7 @@ export function cosSeries(
     // neglected ones, extrapolated, allow an end among the computed terms; the next block
     // is sized to reach that point
     if (
-      blockBelowTolerance(re, n - STOP_SPAN, n, step, settings.tailTolerance) &&
+      blockBelowTolerance(re, Math.max(0, n - STOP_SPAN), n, step, settings.tailTolerance) &&
       trimmedLength(re, n, step, settings) < n
     )
       break;
@@ -280,7 +280,9 @@ function termsToTolerance(
     re[n - 1] + tailFactor - Math.log1p(uEnd * uEnd) - Math.log(settings.tailTolerance);
   const densityExcess =
     re[n - 1] + tailFactor + Math.log(scale) - Math.log(settings.densityTolerance);
-  return Math.ceil(Math.max(priceExcess, densityExcess, 0) / -logRate) + 4;
+  const terms = Math.ceil(Math.max(priceExcess, densityExcess, 0) / -logRate) + 4;
+  // a value that is not a number (a characteristic function gone NaN) asks for a whole block
+  return terms > 0 ? terms : Infinity;
 }
 
 /** An upper bound on |φ(u)| for u ≥ 0 that falls as u grows. */
