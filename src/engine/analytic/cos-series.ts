@@ -127,6 +127,7 @@ export function cosSeries(
   let n = 0;
   let capped = false;
   const defaultBlock = block;
+  let trimmed = -1;
   for (;;) {
     if (planned > 0) block = planned;
     while (n + block > capacity) {
@@ -166,14 +167,17 @@ export function cosSeries(
     // trimmed series stop as soon as their last terms are below the tolerance and the
     // neglected ones, extrapolated, allow an end among the computed terms; the next block
     // is sized to reach that point
-    if (
-      blockBelowTolerance(re, Math.max(0, n - STOP_SPAN), n, step, settings.tailTolerance) &&
-      trimmedLength(re, n, step, settings) < n
-    )
-      break;
+    if (blockBelowTolerance(re, Math.max(0, n - STOP_SPAN), n, step, settings.tailTolerance)) {
+      const end = trimmedLength(re, n, step, settings);
+      if (end < n) {
+        trimmed = end;
+        break;
+      }
+    }
     block = Math.min(defaultBlock, Math.max(FINAL_BLOCK, termsToTolerance(re, n, step, settings)));
   }
-  if (settings.trimTerms) n = trimmedLength(re, n, step, settings);
+  // the cut the stop found, or else (planned, capped) the one the computed terms allow
+  if (settings.trimTerms) n = trimmed >= 0 ? trimmed : trimmedLength(re, n, step, settings);
   const stride = withSlope ? 6 : 4;
   const table = allocate ? allocate(n * stride) : new Float64Array(n * stride);
   const scale = 2 / (b - a);
@@ -242,6 +246,8 @@ export function cosSeries(
  */
 const STOP_SPAN = 16;
 const FINAL_BLOCK = 16;
+/** The last terms whose rate of decay extrapolates a series' tail. */
+const RATE_SPAN = 32;
 
 /** Whether every term in [from, to) is below `tolerance` in the weight it carries into a price. */
 function blockBelowTolerance(
@@ -269,7 +275,7 @@ function termsToTolerance(
   step: number,
   settings: CosSettings,
 ): number {
-  const back = Math.min(32, n - 1);
+  const back = Math.min(RATE_SPAN, n - 1);
   const logRate = (re[n - 1] - re[n - 1 - back]) / back;
   if (!(logRate < 0)) return Infinity;
   const uEnd = (n - 1) * step;
@@ -328,7 +334,7 @@ function plannedTerms(envelope: Envelope, step: number, settings: CosSettings): 
 function trimmedLength(re: Float64Array, n: number, step: number, settings: CosSettings): number {
   const scale = (2 * step) / Math.PI;
   const density = (k: number) => scale * Math.exp(re[k]);
-  const back = Math.min(32, n - 1);
+  const back = Math.min(RATE_SPAN, n - 1);
   const ratio = Math.pow(density(n - 1) / density(n - 1 - back), 1 / back);
   if (!(ratio < 1)) return n;
   const beyond = ratio / (1 - ratio);

@@ -19,7 +19,10 @@ export type { CosSeries, CosSlope } from './cos-series';
 export interface CosSettings {
   /** probability left below the range and forward above it (see `truncation-range.ts`) */
   tailMass: number;
-  /** stop adding terms once |φ(u_n)|/(1 + u_n²) stays below this over a whole block */
+  /**
+   * the price's neglected terms, Σ|φ(u_n)|/(1 + u_n²), below this (with `trimTerms: false`:
+   * every term of the last whole block below it)
+   */
   tailTolerance: number;
   /** and the density's neglected terms, Σ (2/(b − a))|φ(u_n)|, below this */
   densityTolerance: number;

@@ -106,11 +106,12 @@ function fourierIntegral(
   // zero of the cosine cannot end it early)
   let upper = 50;
   const probe = new Float64Array(1);
+  const probeShift = Float64Array.of(shift);
   const logModulus = new Float64Array(1);
   const phase = new Float64Array(1);
   for (let it = 0; it < 60; it++) {
     probe[0] = upper;
-    logCharacteristic(spec, expiry, Float64Array.of(shift), probe, logModulus, phase, 1);
+    logCharacteristic(spec, expiry, probeShift, probe, logModulus, phase, 1);
     if (Math.exp(logModulus[0]) * weight(upper) * upper < 1e-18) break;
     upper *= 1.5;
   }
