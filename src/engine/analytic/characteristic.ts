@@ -168,6 +168,7 @@ function hestonLogCf(
   const extra = JUMP_TERM_OUT;
   const xi2 = xi * xi;
   const kt = kappa * theta;
+  const twoOverXi2 = 2 / xi2;
   for (let j = 0; j < count; j++) {
     const a = wr[j];
     const b = wi[j];
@@ -245,25 +246,22 @@ function hestonLogCf(
     const ti = ghr * omi + ghi * omr;
     const zhr = (tr * ogr + ti * ogi) * invOgm;
     const zhi = (ti * ogr - tr * ogi) * invOgm;
-    // L = log1p(ξ² zHat) / (ξ² zHat), so (2/ξ²) log1p(ξ² zHat) = 2 zHat L
+    // (2/ξ²) ln(1 + u), u = ξ² zHat; where u is so small that 2/ξ² would amplify ln's
+    // rounding, 2 zHat (1 − u/2 + u²/3) instead
     const ur = xi2 * zhr;
     const ui = xi2 * zhi;
-    let Lr: number, Li: number;
     const um = ur * ur + ui * ui;
+    let logr: number, logi: number;
     if (um < 1e-16) {
-      // 1 − u/2 + u²/3
-      Lr = 1 - 0.5 * ur + (ur * ur - ui * ui) / 3;
-      Li = -0.5 * ui + (2 * ur * ui) / 3;
+      const Lr = 1 - 0.5 * ur + (ur * ur - ui * ui) / 3;
+      const Li = -0.5 * ui + (2 * ur * ui) / 3;
+      logr = 2 * (zhr * Lr - zhi * Li);
+      logi = 2 * (zhr * Li + zhi * Lr);
     } else {
-      const lr = 0.5 * Math.log1p(2 * ur + um);
-      const li = Math.atan2(ui, 1 + ur);
-      const invUm = 1 / um;
-      Lr = (lr * ur + li * ui) * invUm;
-      Li = (li * ur - lr * ui) * invUm;
+      logr = twoOverXi2 * 0.5 * Math.log1p(2 * ur + um);
+      logi = twoOverXi2 * Math.atan2(ui, 1 + ur);
     }
-    const logr = 2 * (zhr * Lr - zhi * Li);
-    const logi = 2 * (zhr * Li + zhi * Lr);
-    // C = κθ (m T − 2 zHat L)
+    // C = κθ (m T − (2/ξ²) ln(1 + ξ² zHat))
     const Cr = kt * (mr * T - logr);
     const Ci = kt * (mi * T - logi);
     outRe[j] = Cr + v0 * Dr;
@@ -319,17 +317,16 @@ function addLognormalJumps(
     const b = wi[j];
     const er = mu * a + hv * (a * a - b * b);
     const ei = mu * b + hv * 2 * a * b;
-    // e^{e} − 1 = (e^{er} − 1)cos ei − (1 − cos ei) + i e^{er} sin ei, from expm1 and the half
-    // angle so that neither part cancels when e is small
-    const sHalf = Math.sin(0.5 * ei);
-    const twoS2 = 2 * sHalf * sHalf;
     let xr: number, xi: number;
     if (er < EXPM1_IS_MINUS_ONE) {
-      // far out in u the jump's own term has vanished: e^{er} − 1 rounds to −1, the same
-      // numbers without expm1 and the cosine
-      xr = -(1 - twoS2) - twoS2;
+      // far out in u the jump's own term has vanished: e^{e} − 1 is −1
+      xr = -1;
       xi = 0;
     } else {
+      // e^{e} − 1 = (e^{er} − 1)cos ei − (1 − cos ei) + i e^{er} sin ei, from expm1 and the
+      // half angle so that neither part cancels when e is small
+      const sHalf = Math.sin(0.5 * ei);
+      const twoS2 = 2 * sHalf * sHalf;
       const em1 = Math.expm1(er);
       xr = em1 * (1 - twoS2) - twoS2;
       xi = (1 + em1) * (2 * sHalf * Math.cos(0.5 * ei));

@@ -255,7 +255,9 @@ function jumpPartCf(
  * φ = φ_q·e^{Λ(E − 1)} (φ_q the shifted jump-free function), so the part's characteristic
  * function is φ_q·(e^{ΛE} − 1)·e^{−Λ}/(1 − e^{−Λ}). e^{ΛE} − 1 is formed with expm1, free of the
  * cancellation φ − e^{−Λ}φ_q suffers where ΛE is small. Its time slope is φ_q's plus
- * λ(0)·[E·e^{ΛE}/(e^{ΛE} − 1) − 1 − e^{−Λ}/(1 − e^{−Λ})].
+ * λ(0)·[E·e^{ΛE}/(e^{ΛE} − 1) − 1 − e^{−Λ}/(1 − e^{−Λ})]. Where |ΛE| < 0.05, as at most of the
+ * part's terms, both come from series in ΛE (`smallJumpSeries`): no logarithm, quotient or
+ * expm1 there.
  */
 function lognormalJumpPartCf(
   quietCf: LogCf,
@@ -268,6 +270,8 @@ function lognormalJumpPartCf(
   const mu = jl.jumpMean;
   const hv = 0.5 * jl.jumpStdev * jl.jumpStdev;
   const logScale = -lambdaT - Math.log(pJump);
+  // ln Λ with the part's scale, for ln z = ln Λ + x
+  const logLambda = Math.log(lambdaT) + logScale;
   const weightRate = lambdaNow * (1 + p0 / pJump);
   return (wr, wi, re, im, count, slope) => {
     quietCf(wr, wi, re, im, count, slope);
@@ -280,6 +284,18 @@ function lognormalJumpPartCf(
       const em = lambdaT * Math.exp(xr);
       const zr = em * Math.cos(xi);
       const zi = em * Math.sin(xi);
+      if (em < SMALL_Z) {
+        // ln(e^z − 1) = ln z + ln((e^z − 1)/z), ln z = ln Λ + x; E·e^z/(e^z − 1) = (1/Λ)·z/(1 − e^{−z})
+        const series = SERIES_OUT;
+        smallJumpSeries(zr, zi, series);
+        re[k] += logLambda + xr + series[0];
+        im[k] += xi + series[1];
+        if (slope) {
+          slope.re[k] += (lambdaNow / lambdaT) * series[2] - weightRate;
+          slope.im[k] += (lambdaNow / lambdaT) * series[3];
+        }
+        continue;
+      }
       // e^z − 1, from expm1 and the half angle so that neither part cancels when z is small
       const sHalf = Math.sin(0.5 * zi);
       const cHalf = Math.cos(0.5 * zi);
@@ -307,4 +323,27 @@ function lognormalJumpPartCf(
       slope.im[k] += (lambdaNow * (pi * mr - pr * mi)) / mm;
     }
   };
+}
+
+/** Below this |z| the N ≥ 1 part takes e^z − 1 from series (see `smallJumpSeries`). */
+const SMALL_Z = 0.05;
+const SERIES_OUT = new Float64Array(4);
+
+/**
+ * At small z = ΛE, the N ≥ 1 part's two functions of z from their series rather than from
+ * e^z − 1, a logarithm and a quotient, into out: [0, 1] ln((e^z − 1)/z) = z/2 + ln(sinh(z/2)/(z/2))
+ * = z/2 + z²/24 − z⁴/2880 + z⁶/181440 − …, and [2, 3] z/(1 − e^{−z}) = 1 + z/2 + z²/12 − z⁴/720 +
+ * z⁶/30240 − … (the Bernoulli series). For |z| < 0.05 the first terms left out are below 1e-17.
+ */
+export function smallJumpSeries(zr: number, zi: number, out: Float64Array): void {
+  const z2r = zr * zr - zi * zi;
+  const z2i = 2 * zr * zi;
+  const z4r = z2r * z2r - z2i * z2i;
+  const z4i = 2 * z2r * z2i;
+  const z6r = z4r * z2r - z4i * z2i;
+  const z6i = z4r * z2i + z4i * z2r;
+  out[0] = zr / 2 + z2r / 24 - z4r / 2880 + z6r / 181440;
+  out[1] = zi / 2 + z2i / 24 - z4i / 2880 + z6i / 181440;
+  out[2] = 1 + zr / 2 + z2r / 12 - z4r / 720 + z6r / 30240;
+  out[3] = zi / 2 + z2i / 12 - z4i / 720 + z6i / 30240;
 }

@@ -303,22 +303,21 @@ export type Envelope = (u: number) => number;
 function plannedTerms(envelope: Envelope, step: number, settings: CosSettings): number {
   const scale = (2 * step) / Math.PI;
   const { tailTolerance, densityTolerance, minTerms, maxTerms } = settings;
-  const priceWeight = (k: number) => envelope(k * step) / (1 + k * k * step * step);
+  // the bound at term k, and what it carries into a price
+  const priceWeight = (k: number, bound: number) => bound / (1 + k * k * step * step);
   let end = minTerms;
-  while (
-    end < maxTerms &&
-    !(
-      priceWeight(end) < 1e-3 * tailTolerance &&
-      scale * envelope(end * step) < 1e-3 * densityTolerance
-    )
-  )
-    end *= 2;
+  for (; end < maxTerms; end *= 2) {
+    const bound = envelope(end * step);
+    if (priceWeight(end, bound) < 1e-3 * tailTolerance && scale * bound < 1e-3 * densityTolerance)
+      break;
+  }
   if (end >= maxTerms) return maxTerms;
   let priceTail = 0;
   let densityTail = 0;
   for (let k = end - 1; k >= minTerms; k--) {
-    priceTail += priceWeight(k);
-    densityTail += scale * envelope(k * step);
+    const bound = envelope(k * step);
+    priceTail += priceWeight(k, bound);
+    densityTail += scale * bound;
     if (!(priceTail < tailTolerance && densityTail < densityTolerance)) return k + 1;
   }
   return minTerms;

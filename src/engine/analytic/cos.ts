@@ -154,7 +154,7 @@ const MIXTURE_SCRATCH: Scratch = { values: [], indices: new Int32Array(0) };
 function workingArrays(scratch: Scratch, n: number): Scratch {
   if (scratch.indices.length < n) {
     const size = Math.max(64, n);
-    scratch.values = Array.from({ length: 6 }, () => new Float64Array(size));
+    scratch.values = Array.from({ length: 7 }, () => new Float64Array(size));
     scratch.indices = new Int32Array(size);
   }
   return scratch;
@@ -210,7 +210,7 @@ export function seriesStrip(
   const eb = Math.exp(b);
   const step = Math.PI / (b - a);
   const work = workingArrays(SERIES_SCRATCH, logMoneyness.length);
-  const [deltas, S, C, R, dS, dR] = work.values;
+  const [deltas, S, C, R, dS, dR, expK] = work.values;
   const insideAt = work.indices;
   // strikes inside (a, b) go through the series; the rest are settled here
   let m = 0;
@@ -231,6 +231,7 @@ export function seriesStrip(
       if (timeSlope) timeSlope[j] = -prep.meanSlope;
     } else {
       deltas[m] = step * (k - a);
+      expK[m] = ek;
       insideAt[m++] = j;
     }
   }
@@ -241,7 +242,7 @@ export function seriesStrip(
   for (let i = 0; i < m; i++) {
     const j = insideAt[i];
     const k = logMoneyness[j];
-    const ek = Math.exp(k);
+    const ek = expK[i];
     const sumPsi = a0 * (k - a) + S[i]; // Σ A_n ψ_n(a, k)
     const sumChiK = ek * (a0 + R[i]); // Σ A_n (cos_n + u sin_n) e^k / (1 + u²)
     const sumChi = sumChiK - ea * (a0 + prep.sumOverU2Tail); // Σ A_n χ_n(a, k)

@@ -1,2 +1,2 @@
 /** Bumped whenever a change can alter any computed number; cached results carry it. */
-export const ENGINE_VERSION = '0.6.0';
+export const ENGINE_VERSION = '0.7.0';
