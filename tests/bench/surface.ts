@@ -13,7 +13,7 @@ import {
 } from '../../src/engine/analytic';
 import { discountFactor, forwardPrice, type Market, type Model } from '../../src/engine/core';
 import { quantlibBatesPrices, quantlibHestonPrices } from '../support/quantlib';
-import { fmt, medianMs } from './timing';
+import { ENGINE_WARMUP, fmt, medianMs } from './timing';
 
 const DAYS = [1, 7, 14, 30, 61, 91, 182, 365];
 const STRIKES = 41;
@@ -103,7 +103,7 @@ export function benchSurface(): Record<string, string>[] {
     ],
   ];
   for (const [name, model, peer] of cases) {
-    const ours = medianMs(() => ourSurface(model, g), 200, 20);
+    const ours = medianMs(() => ourSurface(model, g), 200, ENGINE_WARMUP);
     let peerPrices: number[] = [];
     const theirs = medianMs(() => (peerPrices = peer()), 5, 1);
     const diff = maxDiff(ourSurface(model, g), volsFromPeer(peerPrices, legs));
@@ -129,7 +129,7 @@ export function benchSurface(): Record<string, string>[] {
   // the CLI's `price`: prices, implied vols and the five Greeks (theta from the strip itself)
   const options = peerLegs(g).map((l) => ({ type: l.type, strike: l.strike, expiry: l.T }));
   const batesModel: Model = { kind: 'bates', ...heston, ...jumps };
-  const withGreeks = medianMs(() => priceOptions(market, batesModel, options), 200, 20);
+  const withGreeks = medianMs(() => priceOptions(market, batesModel, options), 200, ENGINE_WARMUP);
   let peerPrices: number[] = [];
   const peerBates = medianMs(
     () =>
