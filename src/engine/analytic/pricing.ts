@@ -177,7 +177,7 @@ export function priceOptions(
   // would outlive the young generation's collections, and the allocator would then place
   // every later one straight in the old generation. One buffer holds the five figures and,
   // per expiry, its log-moneyness and strip values (6 per option).
-  const work = new Float64Array(11 * n);
+  const work = workBuffer(11 * n);
   const [price, delta, gamma, vega, theta] = [0, 1, 2, 3, 4].map((f) =>
     work.subarray(f * n, (f + 1) * n),
   );
@@ -254,6 +254,16 @@ interface ExpiryValues {
 
 /** The series tables of one `priceOptions` call (each engine runs in one thread). */
 const TABLES = new TableArena();
+
+/**
+ * `priceOptions`' figures, kept between calls and grown on demand: the results are copied out
+ * of it before the call returns, and a typed array of its own would cost microseconds a call.
+ */
+let WORK = new Float64Array(11 * 512);
+function workBuffer(size: number): Float64Array {
+  if (WORK.length < size) WORK = new Float64Array(size);
+  return WORK.subarray(0, size);
+}
 
 function valueAt(
   spec: ModelSpec,
