@@ -1,7 +1,7 @@
 /**
  * Calls an engine function gets before its time is taken. V8 settles on its optimised code for
  * `priceOptions` on the benchmark surface only after 100–150 calls: medians of 50-call windows
- * in a fresh process fell from 1.9 ms to 0.91–0.95 ms by the 150th call and stayed there. A
+ * in two fresh processes fell from 1.9 ms to 0.91–0.99 ms by the 150th call and stayed there. A
  * shorter warm-up would time the JIT as well as the engine.
  */
 export const ENGINE_WARMUP = 200;
