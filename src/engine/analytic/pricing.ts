@@ -177,7 +177,8 @@ export function priceOptions(
   // would outlive the young generation's collections, and the allocator would then place
   // every later one straight in the old generation. One buffer holds the five figures and,
   // per expiry, its log-moneyness and strip values (6 per option).
-  const work = workBuffer(11 * n);
+  TABLES.reset();
+  const work = TABLES.allocate(11 * n);
   const [price, delta, gamma, vega, theta] = [0, 1, 2, 3, 4].map((f) =>
     work.subarray(f * n, (f + 1) * n),
   );
@@ -185,7 +186,6 @@ export function priceOptions(
   const take = (size: number) => work.subarray(free, (free += size));
   const vols: (number | null)[] = new Array(n);
   const spec = modelSpec(model);
-  TABLES.reset();
   for (const [expiry, indices] of byExpiry) {
     const strikes = indices.map((i) => options[i].strike);
     const m = strikes.length;
@@ -252,18 +252,11 @@ interface ExpiryValues {
   vols: (number | null)[];
 }
 
-/** The series tables of one `priceOptions` call (each engine runs in one thread). */
-const TABLES = new TableArena();
-
 /**
- * `priceOptions`' figures, kept between calls and grown on demand: the results are copied out
- * of it before the call returns, and a typed array of its own would cost microseconds a call.
+ * The figures and series tables of one `priceOptions` call, in a buffer kept between calls (each
+ * engine runs in one thread): the results are copied out before the call returns.
  */
-let WORK = new Float64Array(11 * 512);
-function workBuffer(size: number): Float64Array {
-  if (WORK.length < size) WORK = new Float64Array(size);
-  return WORK.subarray(0, size);
-}
+const TABLES = new TableArena();
 
 function valueAt(
   spec: ModelSpec,
